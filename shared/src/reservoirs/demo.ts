@@ -1,0 +1,112 @@
+import type { ReservoirDefinition } from './definition.js';
+
+/**
+ * The demo reservoir: Lake Orrin behind Orrin Gap Dam on the Tamsel River. Invented for the demo;
+ * no real dam. Elevation-area-storage rows follow A = 3.0 km2 ((z - 171) / 36)^1.92 with storage
+ * its integral, so that the pool holds about 37 million m3 at the normal maximum of 207.0 m.
+ */
+const STORAGE_ROWS: ReadonlyArray<readonly [number, number, number]> = [
+  [171.0, 0, 0],
+  [173.0, 12000, 8000],
+  [175.0, 44000, 60000],
+  [178.0, 129000, 310000],
+  [181.0, 256000, 878000],
+  [184.0, 424000, 1890000],
+  [187.0, 632000, 3465000],
+  [190.0, 879000, 5723000],
+  [192.0, 1066000, 7665000],
+  [194.0, 1269000, 9997000],
+  [196.0, 1490000, 12753000],
+  [198.0, 1727000, 15967000],
+  [199.0, 1852000, 17756000],
+  [200.0, 1981000, 19672000],
+  [201.0, 2114000, 21719000],
+  [202.0, 2251000, 23901000],
+  [203.0, 2393000, 26223000],
+  [204.0, 2538000, 28688000],
+  [205.0, 2688000, 31301000],
+  [206.0, 2842000, 34066000],
+  [207.0, 3000000, 36986000],
+  [208.0, 3162000, 40067000],
+  [209.0, 3328000, 43312000],
+  [210.0, 3498000, 46725000],
+  [211.0, 3673000, 50310000],
+  [212.0, 3851000, 54071000],
+  [213.0, 4033000, 58013000],
+  [214.0, 4220000, 62139000],
+];
+
+const gate = (n: number) => ({
+  id: `gate-${n}`,
+  channel: `gate.${n}.opening`,
+  type: 'radial' as const,
+  width: 12,
+  maxOpening: 9,
+  orificeCoefficient: 0.68,
+  travelSpeed: 0.005,
+});
+
+export const DEMO_RESERVOIR: ReservoirDefinition = {
+  id: 'lake-orrin',
+  name: 'Lake Orrin',
+  damName: 'Orrin Gap Dam',
+  owner: 'Tamsel Valley Water Board',
+  river: 'Tamsel River',
+  timeZone: 'Europe/London',
+  riverbedElevation: 171,
+  damCrestElevation: 212,
+  normalMaxPool: 207,
+  requiredFreeboard: 1.5,
+  storageTable: STORAGE_ROWS.map(([elevation, area, storage]) => ({ elevation, area, storage })),
+  structures: [
+    {
+      id: 'main-spillway',
+      name: 'Gated ogee spillway',
+      kind: 'gated-spillway',
+      crestElevation: 200,
+      coefficient: 2.1,
+      gates: [gate(1), gate(2), gate(3)],
+    },
+    {
+      id: 'auxiliary-spillway',
+      name: 'Auxiliary spillway',
+      kind: 'broad-crested-weir',
+      crestElevation: 209,
+      length: 60,
+      coefficient: 1.7,
+    },
+    {
+      id: 'low-level-outlet',
+      name: 'Low-level outlet',
+      kind: 'low-level-outlet',
+      valveChannel: 'outlet.valve',
+      diameter: 1.8,
+      length: 60,
+      outletElevation: 173,
+      frictionFactor: 0.015,
+      entranceLossCoefficient: 0.5,
+      valveLossCoefficient: 0.2,
+      travelSpeed: 0.5,
+    },
+  ],
+  thresholds: [
+    { id: 'watch', label: 'Watch level', kind: 'alert', elevation: 205.5 },
+    { id: 'normal-max', label: 'Normal maximum pool', kind: 'alert', elevation: 207 },
+    { id: 'aux-spillway', label: 'Auxiliary spillway crest', kind: 'auxiliary-spillway', elevation: 209 },
+    { id: 'freeboard-limit', label: 'Dam crest less freeboard', kind: 'crest-less-freeboard', elevation: 210.5 },
+    { id: 'dam-crest', label: 'Dam crest', kind: 'dam-crest', elevation: 212 },
+  ],
+  channels: [
+    { id: 'pool.radar', deviceId: 'pool-radar', label: 'Pool (radar)', role: 'pool', unit: 'm', min: 165, max: 220, intervalS: 30, staleAfterS: 180 },
+    { id: 'pool.pressure', deviceId: 'pool-pressure', label: 'Pool (pressure)', role: 'pool', unit: 'm', min: 165, max: 220, intervalS: 30, staleAfterS: 180 },
+    { id: 'inflow', deviceId: 'inflow-gauge', label: 'Inflow', role: 'inflow', unit: 'm3/s', min: 0, max: 20000, intervalS: 60, staleAfterS: 360 },
+    { id: 'rain', deviceId: 'rain-gauge', label: 'Rainfall intensity', role: 'rain', unit: 'mm/h', min: 0, max: 500, intervalS: 300, staleAfterS: 1200 },
+    { id: 'gate.1.opening', deviceId: 'gate-controller', label: 'Gate 1 opening', role: 'gate-opening', unit: 'm', min: 0, max: 9.5, intervalS: 60, staleAfterS: 300 },
+    { id: 'gate.2.opening', deviceId: 'gate-controller', label: 'Gate 2 opening', role: 'gate-opening', unit: 'm', min: 0, max: 9.5, intervalS: 60, staleAfterS: 300 },
+    { id: 'gate.3.opening', deviceId: 'gate-controller', label: 'Gate 3 opening', role: 'gate-opening', unit: 'm', min: 0, max: 9.5, intervalS: 60, staleAfterS: 300 },
+    { id: 'outlet.valve', deviceId: 'gate-controller', label: 'Outlet valve', role: 'valve-opening', unit: '%', min: 0, max: 100, intervalS: 60, staleAfterS: 300 },
+    { id: 'tailwater', deviceId: 'tailwater-gauge', label: 'Tailwater', role: 'tailwater', unit: 'm', min: 165, max: 200, intervalS: 60, staleAfterS: 360 },
+    { id: 'outflow', deviceId: 'release-gauge', label: 'Outflow', role: 'outflow', unit: 'm3/s', min: 0, max: 20000, intervalS: 60, staleAfterS: 360 },
+  ],
+  poolChannels: ['pool.radar', 'pool.pressure'],
+};

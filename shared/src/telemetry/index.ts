@@ -1,0 +1,5 @@
+export * from './api.js';
+export * from './message.js';
+export * from './series.js';
+export * from './topics.js';
+export * from './validation.js';
