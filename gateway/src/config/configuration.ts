@@ -1,0 +1,37 @@
+import { resolve } from 'node:path';
+import { z } from 'zod';
+
+const bool = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+
+/** Every environment variable the gateway reads, with its embedded default (see README). */
+export const envSchema = z.object({
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('127.0.0.1'),
+  DATABASE_PATH: z.string().default(resolve(__dirname, '../../../data/stillwell.sqlite')),
+  MQTT_URL: z.string().url().default('mqtt://127.0.0.1:1883'),
+  MQTT_USERNAME: z.string().optional(),
+  MQTT_PASSWORD: z.string().optional(),
+  MQTT_CLIENT_ID: z.string().min(1).max(64).default('stillwell-gateway'),
+  CONSOLE_DIST: z.string().default(resolve(__dirname, '../../../console/dist')),
+  DEMO_MODE: bool.default(true),
+  /** how far ahead of the site clock a measurement may be before it is quarantined, s */
+  TELEMETRY_MAX_FUTURE_S: z.coerce.number().min(0).default(120),
+  /** readings are written in one transaction per batch: at most this many, at most this often */
+  INGEST_BATCH_SIZE: z.coerce.number().int().min(1).max(5000).default(1000),
+  INGEST_FLUSH_MS: z.coerce.number().int().min(1).max(10000).default(50),
+  /** how often the overview status is pushed to consoles, ms of wall time */
+  STATUS_PUSH_MS: z.coerce.number().int().min(100).default(1000),
+});
+export type Env = z.infer<typeof envSchema>;
+
+/** ConfigModule's validate hook: refuse to start on a bad variable and say which. */
+export function validateEnv(raw: Record<string, unknown>): Env {
+  const parsed = envSchema.safeParse(raw);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ');
+    throw new Error(`Invalid configuration: ${problems}`);
+  }
+  return parsed.data;
+}

@@ -1,0 +1,77 @@
+import { Injectable, Logger, OnModuleDestroy, OnModuleInit } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { connect, type MqttClient } from 'mqtt';
+import type { Env } from '../config';
+import { topicMatches } from './topic-filter';
+
+export type MqttHandler = (topic: string, payload: Buffer) => void;
+
+/**
+ * The gateway's one connection to the broker. Standard MQTT 3.1.1 only, so any broker will do.
+ * A persistent session (clean off) and QoS 1 keep messages queued at the broker while we are away;
+ * subscriptions are renewed on every connect because a broker that lost the session won't keep them.
+ */
+@Injectable()
+export class MqttService implements OnModuleInit, OnModuleDestroy {
+  private readonly logger = new Logger(MqttService.name);
+  private client?: MqttClient;
+  private readonly handlers: Array<{ filter: string; handler: MqttHandler }> = [];
+
+  constructor(private readonly config: ConfigService<Env, true>) {}
+
+  onModuleInit(): void {
+    const url = this.config.get('MQTT_URL', { infer: true });
+    this.client = connect(url, {
+      clientId: this.config.get('MQTT_CLIENT_ID', { infer: true }),
+      username: this.config.get('MQTT_USERNAME', { infer: true }),
+      password: this.config.get('MQTT_PASSWORD', { infer: true }),
+      protocolVersion: 4,
+      clean: false,
+      reconnectPeriod: 1000,
+      connectTimeout: 5000,
+    });
+    this.client.on('connect', () => {
+      this.logger.log(`Connected to ${url}`);
+      this.resubscribe();
+    });
+    this.client.on('error', (error) => this.logger.warn(`MQTT: ${error.message}`));
+    this.client.on('offline', () => this.logger.warn(`Broker ${url} unreachable; retrying`));
+    this.client.on('message', (topic, payload) => this.dispatch(topic, payload));
+  }
+
+  async onModuleDestroy(): Promise<void> {
+    await this.client?.endAsync();
+  }
+
+  get connected(): boolean {
+    return this.client?.connected ?? false;
+  }
+
+  /** Registers a handler; the subscription is made now if connected and again on every reconnect. */
+  subscribe(filter: string, handler: MqttHandler): void {
+    this.handlers.push({ filter, handler });
+    if (this.client?.connected) this.client.subscribe(filter, { qos: 1 });
+  }
+
+  async publish(topic: string, payload: string, retain = false): Promise<void> {
+    if (!this.client) throw new Error('MQTT client not started');
+    await this.client.publishAsync(topic, payload, { qos: 1, retain });
+  }
+
+  private resubscribe(): void {
+    const filters = [...new Set(this.handlers.map((h) => h.filter))];
+    if (filters.length) this.client?.subscribe(filters, { qos: 1 });
+  }
+
+  private dispatch(topic: string, payload: Buffer): void {
+    for (const { filter, handler } of this.handlers) {
+      if (!topicMatches(filter, topic)) continue;
+      try {
+        handler(topic, payload);
+      } catch (error) {
+        // A handler must never take the connection down; it is a bug to fix, so say it loudly.
+        this.logger.error(`Handler for ${filter} failed on ${topic}: ${(error as Error).stack}`);
+      }
+    }
+  }
+}

@@ -1,0 +1,18 @@
+import { ValidationPipe, type INestApplication } from '@nestjs/common';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+
+/** Everything main.ts applies to the app, shared with the integration tests so they test the same thing. */
+export function setupApp(app: INestApplication): void {
+  app.setGlobalPrefix('api');
+  app.useGlobalPipes(new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }));
+  app.enableShutdownHooks();
+  const document = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder()
+      .setTitle('Stillwell gateway')
+      .setDescription('Reservoir telemetry, forecasts and operations. Forecasts are decision support.')
+      .setVersion('0.1.0')
+      .build(),
+  );
+  SwaggerModule.setup('api/docs', app, document, { jsonDocumentUrl: 'api/docs-json' });
+}

@@ -1,0 +1,53 @@
+import { Controller, Get, Param, Query } from '@nestjs/common';
+import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { ReadingSeries, ReservoirStatus } from '@stillwell/shared/telemetry';
+import { QuarantineQueryDto, ReadingsQueryDto } from './dto/readings-query.dto';
+import { IngestionService, type IngestionCounters } from './ingestion.service';
+import { QuarantinedMessage } from './quarantined-message.entity';
+import { ReadingsService } from './readings.service';
+import { SequenceGap } from './sequence-gap.entity';
+import { StatusService } from './status.service';
+
+@ApiTags('telemetry')
+@Controller()
+export class TelemetryController {
+  constructor(
+    private readonly readings: ReadingsService,
+    private readonly status: StatusService,
+    private readonly ingestion: IngestionService,
+  ) {}
+
+  @Get('reservoirs/:id/status')
+  @ApiOkResponse({ description: 'Latest value of every channel, pool, freeboard, rate of rise, site clock' })
+  getStatus(@Param('id') id: string): ReservoirStatus {
+    return this.status.status(id);
+  }
+
+  @Get('reservoirs/:id/channels/:channel/readings')
+  @ApiOkResponse({ description: 'A channel readings over a time range (columnar, SI units)' })
+  getReadings(
+    @Param('id') id: string,
+    @Param('channel') channel: string,
+    @Query() query: ReadingsQueryDto,
+  ): Promise<ReadingSeries> {
+    return this.readings.series(id, channel, query);
+  }
+
+  @Get('reservoirs/:id/gaps')
+  @ApiOkResponse({ description: 'Sequence gaps detected per device, most recent first' })
+  getGaps(@Param('id') id: string): Promise<SequenceGap[]> {
+    return this.readings.gapsOf(id);
+  }
+
+  @Get('telemetry/quarantine')
+  @ApiOkResponse({ description: 'Most recent quarantined messages with their reasons and raw payloads' })
+  getQuarantine(@Query() query: QuarantineQueryDto): Promise<QuarantinedMessage[]> {
+    return this.readings.recentQuarantine(query.limit);
+  }
+
+  @Get('telemetry/counters')
+  @ApiOkResponse({ description: 'Ingestion counters since the gateway started' })
+  getCounters(): IngestionCounters {
+    return this.ingestion.counters;
+  }
+}
