@@ -17,13 +17,12 @@ import { MqttService } from '../mqtt/mqtt.service';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { QuarantinedMessage } from './quarantined-message.entity';
 import { Reading } from './reading.entity';
+import { ReadingInserter, type NewReading } from './reading-insert';
 import { SequenceGap } from './sequence-gap.entity';
 import { SequenceTracker } from './sequence-tracker';
 
 /** Raw payloads kept in quarantine are cut here: enough to see what was wrong, not a disk filler. */
 export const PAYLOAD_KEEP_BYTES = 16 * 1024;
-/** Rows per INSERT statement, well under SQLite's bound-parameter limit. */
-const INSERT_CHUNK = 500;
 
 export interface IngestionCounters {
   received: number;
@@ -53,7 +52,7 @@ export interface StoredBatch {
 export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger(IngestionService.name);
   private readonly sequences = new SequenceTracker();
-  private readings: Array<Omit<Reading, 'id'>> = [];
+  private readings: NewReading[] = [];
   private fresh: LiveReading[] = [];
   private quarantine: Array<Omit<QuarantinedMessage, 'id'>> = [];
   private gaps: Array<Omit<SequenceGap, 'id'>> = [];
@@ -61,6 +60,7 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
   private readonly batchSize: number;
   private readonly flushMs: number;
   private readonly maxFutureS: number;
+  private readonly inserter: ReadingInserter;
   readonly stored$ = new Subject<StoredBatch>();
   readonly counters: IngestionCounters = {
     received: 0,
@@ -84,6 +84,7 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
     this.batchSize = config.get('INGEST_BATCH_SIZE', { infer: true });
     this.flushMs = config.get('INGEST_FLUSH_MS', { infer: true });
     this.maxFutureS = config.get('TELEMETRY_MAX_FUTURE_S', { infer: true });
+    this.inserter = new ReadingInserter(readingRepo.manager.connection.driver);
   }
 
   async onApplicationBootstrap(): Promise<void> {
@@ -183,19 +184,7 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
     return this.writes
       .run(() =>
         this.readingRepo.manager.transaction(async (tx) => {
-          let inserted = 0;
-          for (let i = 0; i < readings.length; i += INSERT_CHUNK) {
-            const [sql, params] = tx
-              .createQueryBuilder()
-              .insert()
-              .into(Reading)
-              .values(readings.slice(i, i + INSERT_CHUNK))
-              .orIgnore()
-              .getQueryAndParameters();
-            // the structured result carries the row count; repeats skipped by the unique key are not counted
-            const result = (await tx.queryRunner!.query(sql, params, true)) as { affected?: number };
-            inserted += result.affected ?? 0;
-          }
+          const inserted = await this.inserter.insert(tx.queryRunner!, readings);
           if (quarantine.length) await tx.insert(QuarantinedMessage, quarantine);
           if (gaps.length) await tx.insert(SequenceGap, gaps);
           return inserted;
