@@ -1,0 +1,77 @@
+import { describe, expect, it } from 'vitest';
+import { parseCli } from './cli-options.js';
+
+describe('parseCli', () => {
+  it('defaults to a local broker and the demo storm', () => {
+    expect(parseCli([], {})).toEqual({
+      help: false,
+      options: { broker: true, scenario: 'demo-storm', faults: [] },
+    });
+  });
+
+  it('reads every option', () => {
+    const result = parseCli(
+      [
+        '--speed',
+        '3600',
+        '--broker-port',
+        '0',
+        '--scenario',
+        'demo-storm',
+        '--seed',
+        '7',
+        '--dropout',
+        'pool-radar:20-23',
+        '--dropout',
+        'inflow-gauge:1-2',
+        '--freeze',
+        'tailwater-gauge:5-6.5',
+        '--mqtt-url',
+        'mqtt://127.0.0.1:1999',
+        '--no-broker',
+      ],
+      {},
+    );
+    expect(result).toEqual({
+      help: false,
+      options: {
+        broker: false,
+        speed: 3600,
+        brokerPort: 0,
+        mqttUrl: 'mqtt://127.0.0.1:1999',
+        scenario: 'demo-storm',
+        seed: 7,
+        faults: [
+          { kind: 'dropout', deviceId: 'pool-radar', startHour: 20, endHour: 23 },
+          { kind: 'dropout', deviceId: 'inflow-gauge', startHour: 1, endHour: 2 },
+          { kind: 'freeze', deviceId: 'tailwater-gauge', startHour: 5, endHour: 6.5 },
+        ],
+      },
+    });
+  });
+
+  it('takes MQTT_PORT and SIM_SPEED from the environment, the flags winning', () => {
+    expect(parseCli([], { MQTT_PORT: '2883', SIM_SPEED: '60' })).toMatchObject({
+      options: { brokerPort: 2883, speed: 60 },
+    });
+    expect(parseCli(['--speed', '10'], { SIM_SPEED: '60' })).toMatchObject({
+      options: { speed: 10 },
+    });
+  });
+
+  it('answers --help', () => {
+    expect(parseCli(['--help'], {})).toEqual({ help: true });
+  });
+
+  it.each([
+    [['--speed', '0']],
+    [['--speed', 'fast']],
+    [['--broker-port', '70000']],
+    [['--seed', '1.5']],
+    [['--mqtt-url', 'http://x']],
+    [['--dropout', 'pool-radar']],
+    [['--loud']],
+  ])('refuses %j', (argv) => {
+    expect(() => parseCli(argv, {})).toThrow();
+  });
+});

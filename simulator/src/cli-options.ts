@@ -1,0 +1,84 @@
+import { parseArgs } from 'node:util';
+import { parseFault } from './scenarios/faults.js';
+import type { SimulationOptions } from './simulation.js';
+
+export const USAGE = `stillwell-sim: local MQTT broker and the simulated Orrin Gap plant
+
+Usage: node dist/cli.js [options]
+
+  --speed N                plant seconds per wall second (default 360; env SIM_SPEED)
+  --broker-port N          port of the broker started here (default 1883, 0 = any free; env MQTT_PORT)
+  --no-broker              start no broker; connect the devices to --mqtt-url
+  --mqtt-url URL           broker the devices use (default mqtt://127.0.0.1:1883); without
+                           --no-broker the broker started here listens on its port
+  --scenario ID            scenario to run (default demo-storm)
+  --dropout DEV:H1-H2      device DEV's messages are lost from hour H1 to H2 (repeatable)
+  --freeze DEV:H1-H2       device DEV repeats its last value from hour H1 to H2 (repeatable)
+  --seed N                 seed of the instrument noise (default 1)
+  --help                   show this text
+`;
+
+export type CliResult = { help: true } | { help: false; options: SimulationOptions };
+
+function number(name: string, text: string, check: (n: number) => boolean): number {
+  const n = Number(text);
+  if (text.trim() === '' || !Number.isFinite(n) || !check(n)) {
+    throw new RangeError(`--${name} "${text}" is not valid`);
+  }
+  return n;
+}
+
+const isPort = (n: number) => Number.isInteger(n) && n >= 0 && n <= 65535;
+
+/** Reads the command line and environment; throws a RangeError with a message for the user. */
+export function parseCli(argv: readonly string[], env: NodeJS.ProcessEnv): CliResult {
+  const { values } = parseArgs({
+    args: [...argv],
+    strict: true,
+    allowPositionals: false,
+    options: {
+      speed: { type: 'string' },
+      'broker-port': { type: 'string' },
+      'no-broker': { type: 'boolean' },
+      'mqtt-url': { type: 'string' },
+      scenario: { type: 'string' },
+      dropout: { type: 'string', multiple: true },
+      freeze: { type: 'string', multiple: true },
+      seed: { type: 'string' },
+      help: { type: 'boolean' },
+    },
+  });
+  if (values.help) return { help: true };
+
+  const speedText = values.speed ?? env.SIM_SPEED;
+  const portText = values['broker-port'] ?? env.MQTT_PORT;
+  const mqttUrl = values['mqtt-url'];
+  if (mqttUrl !== undefined) {
+    let url: URL;
+    try {
+      url = new URL(mqttUrl);
+    } catch {
+      throw new RangeError(`--mqtt-url "${mqttUrl}" is not a URL`);
+    }
+    if (!['mqtt:', 'mqtts:', 'tcp:'].includes(url.protocol)) {
+      throw new RangeError(`--mqtt-url "${mqttUrl}": expected mqtt://host:port`);
+    }
+  }
+  const options: SimulationOptions = {
+    broker: !values['no-broker'],
+    scenario: values.scenario ?? 'demo-storm',
+    faults: [
+      ...(values.dropout ?? []).map((t) => parseFault('dropout', t)),
+      ...(values.freeze ?? []).map((t) => parseFault('freeze', t)),
+    ],
+  };
+  if (speedText !== undefined) {
+    options.speed = number('speed', speedText, (n) => n > 0 && n <= 100_000);
+  }
+  if (portText !== undefined) options.brokerPort = number('broker-port', portText, isPort);
+  if (mqttUrl !== undefined) options.mqttUrl = mqttUrl;
+  if (values.seed !== undefined) {
+    options.seed = number('seed', values.seed, (n) => Number.isInteger(n) && n >= 0);
+  }
+  return { help: false, options };
+}
