@@ -80,13 +80,15 @@ export const lowLevelOutletSchema = z.strictObject({
   travelSpeed: z.number().positive(),
 });
 
-/** Any structure rated by a table of pool elevation against discharge. */
+/**
+ * Any structure rated by a table of pool elevation against discharge. Interpolated by a monotone
+ * cubic (PCHIP) unless `interpolation` is 'linear'; 0 below the first row, whose discharge must be 0.
+ */
 export const ratingTableSchema = z.strictObject({
   ...structureBase,
   kind: z.literal('rating-table'),
-  rows: z
-    .array(z.strictObject({ elevation: z.number(), discharge: z.number().min(0) }))
-    .min(2),
+  interpolation: z.enum(['monotone-cubic', 'linear']).optional(),
+  rows: z.array(z.strictObject({ elevation: z.number(), discharge: z.number().min(0) })).min(2),
 });
 
 export const structureSchema = z.discriminatedUnion('kind', [
