@@ -7,27 +7,38 @@ import { validateEnv } from './config';
 import { ClockModule } from './clock/clock.module';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
+import { LogbookModule } from './logbook/logbook.module';
 import { MqttModule } from './mqtt/mqtt.module';
 import { ReservoirsModule } from './reservoirs/reservoirs.module';
 import { TelemetryModule } from './telemetry/telemetry.module';
 
 /** The built console, served from the same origin when it exists. */
-function consoleModule(): DynamicModule[] {
-  const root = validateEnv(process.env).CONSOLE_DIST;
+function consoleModule(root: string): DynamicModule[] {
   return existsSync(root) ? [ServeStaticModule.forRoot({ rootPath: root, exclude: ['/api/{*path}'] })] : [];
 }
 
-@Module({
-  imports: [
-    ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, ignoreEnvFile: true }),
-    ScheduleModule.forRoot(),
-    DatabaseModule,
-    MqttModule,
-    ClockModule,
-    ReservoirsModule,
-    TelemetryModule,
-    HealthModule,
-    ...consoleModule(),
-  ],
-})
-export class AppModule {}
+/**
+ * The whole gateway. A dynamic module, so the environment is read when the app is built, not when
+ * this file is first imported (tests start several gateways with different settings in one process).
+ */
+@Module({})
+export class AppModule {
+  static register(): DynamicModule {
+    const env = validateEnv(process.env);
+    return {
+      module: AppModule,
+      imports: [
+        ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, ignoreEnvFile: true, cache: false }),
+        ScheduleModule.forRoot(),
+        DatabaseModule,
+        MqttModule,
+        LogbookModule,
+        ClockModule,
+        ReservoirsModule,
+        TelemetryModule,
+        HealthModule,
+        ...consoleModule(env.CONSOLE_DIST),
+      ],
+    };
+  }
+}

@@ -7,7 +7,7 @@ import { setupApp } from './setup-app';
 
 async function bootstrap(): Promise<void> {
   const env = validateEnv(process.env);
-  const app = await NestFactory.create(AppModule);
+  const app = await NestFactory.create(AppModule.register());
   setupApp(app);
   await app.listen(env.PORT, env.HOST);
   Logger.log(`Stillwell is on http://localhost:${env.PORT} (API docs at /api/docs)`, 'Bootstrap');

@@ -3,6 +3,7 @@ import { connectAsync, type MqttClient } from 'mqtt';
 import request from 'supertest';
 import { io, type Socket } from 'socket.io-client';
 import { LIVE_EVENTS, LIVE_NAMESPACE, telemetryTopic, type Reading } from '@stillwell/shared/telemetry';
+import { IngestionService } from '../src/telemetry/ingestion.service';
 import { startTestBroker, type TestBroker } from './support/broker';
 import { eventually, startTestGateway, type TestGateway } from './support/gateway';
 
@@ -80,6 +81,8 @@ describe('telemetry path: MQTT -> validation -> SQLite -> socket.io', () => {
       expect(res.body.repeats).toBe(1);
       expect(res.body.quarantined).toBe(8);
     });
+    // counted on arrival, written with the next batch
+    await gateway.app.get(IngestionService).flush();
 
     const db = new Database(gateway.databasePath, { readonly: true });
     try {

@@ -3,6 +3,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { INestApplication } from '@nestjs/common';
 import { Test } from '@nestjs/testing';
+import { AppModule } from '../../src/app.module';
+import { setupApp } from '../../src/setup-app';
 
 export interface TestGateway {
   app: INestApplication;
@@ -23,12 +25,7 @@ export async function startTestGateway(env: Record<string, string>): Promise<Tes
     MQTT_CLIENT_ID: `stillwell-test-${process.pid}-${Date.now()}`,
     ...env,
   });
-  // imported after the environment is set: modules read it when they are declared
-  /* eslint-disable @typescript-eslint/no-require-imports */
-  const { AppModule } = require('../../src/app.module') as typeof import('../../src/app.module');
-  const { setupApp } = require('../../src/setup-app') as typeof import('../../src/setup-app');
-  /* eslint-enable @typescript-eslint/no-require-imports */
-  const moduleRef = await Test.createTestingModule({ imports: [AppModule] }).compile();
+  const moduleRef = await Test.createTestingModule({ imports: [AppModule.register()] }).compile();
   const app = moduleRef.createNestApplication({ logger: ['error', 'warn'] });
   setupApp(app);
   await app.listen(0, '127.0.0.1');

@@ -1,0 +1,2 @@
+export * from './chain.js';
+export * from './api.js';
