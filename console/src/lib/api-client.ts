@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { apiErrorSchema } from '@stillwell/shared/http';
 import { describeIssues } from '@stillwell/shared/telemetry';
 import { env } from '../config/env';
 
@@ -14,12 +15,6 @@ export class ApiError extends Error {
   }
 }
 
-/** The gateway's error body; NestJS validation sends message as a list. */
-const errorBodySchema = z.object({
-  statusCode: z.number(),
-  message: z.union([z.string(), z.array(z.string())]),
-  error: z.string().optional(),
-});
 
 export interface RequestOptions {
   signal?: AbortSignal;
@@ -34,7 +29,7 @@ function buildUrl(path: string, query?: Record<string, string>): string {
 async function toApiError(response: Response, path: string): Promise<ApiError> {
   let message = `${response.status} ${response.statusText}`.trim();
   try {
-    const body = errorBodySchema.safeParse(await response.json());
+    const body = apiErrorSchema.safeParse(await response.json());
     if (body.success) {
       const text = Array.isArray(body.data.message)
         ? body.data.message.join('; ')

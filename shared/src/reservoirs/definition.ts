@@ -33,6 +33,7 @@ export const channelDefinitionSchema = z.strictObject({
 export type ChannelDefinition = z.infer<typeof channelDefinitionSchema>;
 
 export const THRESHOLD_KINDS = ['alert', 'spillway-crest', 'auxiliary-spillway', 'crest-less-freeboard', 'dam-crest'] as const;
+export type ThresholdKind = (typeof THRESHOLD_KINDS)[number];
 
 export const thresholdSchema = z.strictObject({
   id: idSchema,

@@ -1,2 +1,3 @@
+export * from './api.js';
 export * from './definition.js';
 export * from './demo.js';

@@ -103,3 +103,13 @@ export interface SubscribeAck {
   ok: boolean;
   error?: string;
 }
+
+/** socket.io event maps on the live namespace, for typed clients and servers. */
+export interface LiveServerToClientEvents {
+  readings: (batch: Reading[]) => void;
+  status: (status: ReservoirStatus) => void;
+}
+export interface LiveClientToServerEvents {
+  subscribe: (request: SubscribeRequest, ack: (ack: SubscribeAck) => void) => void;
+  unsubscribe: (request: SubscribeRequest, ack: (ack: SubscribeAck) => void) => void;
+}

@@ -1,14 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
-import { reservoirDefinitionSchema } from '@stillwell/shared/reservoirs';
+import { reservoirResponseSchema, type ReservoirResponse } from '@stillwell/shared/reservoirs';
 import { apiGet } from '../../../lib/api-client';
 
-/** GET /api/reservoirs/:id answers with the definition and its version. */
-const reservoirResponseSchema = z.object({
-  version: z.number().int(),
-  definition: reservoirDefinitionSchema,
-});
-export type ReservoirResponse = z.infer<typeof reservoirResponseSchema>;
+export type { ReservoirResponse };
 
 export function getReservoir(
   reservoirId: string,
