@@ -13,7 +13,10 @@ export default tseslint.config(
     languageOptions: { globals: { ...globals.node } },
     plugins: { 'import-x': importX },
     rules: {
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
       'import-x/no-cycle': ['error', { ignoreExternal: true }],
     },
   },
@@ -34,7 +37,10 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['node:*', 'fs', 'path', 'net', 'http', 'child_process'], message: 'shared/ is pure: no I/O' },
+            {
+              group: ['node:*', 'fs', 'path', 'net', 'http', 'child_process'],
+              message: 'shared/ is pure: no I/O',
+            },
             { group: ['@stillwell/*'], message: 'shared/ imports no other workspace' },
           ],
         },

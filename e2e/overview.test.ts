@@ -26,15 +26,25 @@ test('the overview shows the pool elevation rising live, and marks a silent chan
   await pool.waitFor({ timeout: 30_000 });
   const read = async () => Number.parseFloat((await pool.textContent()) ?? '');
   await page.waitForFunction(
-    () => Number.isFinite(Number.parseFloat(document.querySelector('[data-testid="pool-elevation"]')?.textContent ?? '')),
+    () =>
+      Number.isFinite(
+        Number.parseFloat(
+          document.querySelector('[data-testid="pool-elevation"]')?.textContent ?? '',
+        ),
+      ),
     undefined,
     { timeout: 30_000 },
   );
   const first = await read();
-  assert.ok(first > 190 && first < 215, `pool elevation ${first} m is not plausible for Lake Orrin`);
+  assert.ok(
+    first > 190 && first < 215,
+    `pool elevation ${first} m is not plausible for Lake Orrin`,
+  );
   await page.waitForFunction(
     (start) => {
-      const v = Number.parseFloat(document.querySelector('[data-testid="pool-elevation"]')?.textContent ?? '');
+      const v = Number.parseFloat(
+        document.querySelector('[data-testid="pool-elevation"]')?.textContent ?? '',
+      );
       return Number.isFinite(v) && v !== start;
     },
     first,
@@ -43,7 +53,9 @@ test('the overview shows the pool elevation rising live, and marks a silent chan
   assert.notEqual(await read(), first);
   assert.match((await page.getByTestId('connection-state').textContent()) ?? '', /live|connected/i);
 
-  await page.waitForSelector('[data-testid="channel-row-rain"][data-stale="true"]', { timeout: 60_000 });
+  await page.waitForSelector('[data-testid="channel-row-rain"][data-stale="true"]', {
+    timeout: 60_000,
+  });
   const poolRow = page.getByTestId('channel-row-pool.radar');
   assert.equal(await poolRow.getAttribute('data-stale'), 'false');
   await page.screenshot({ path: process.env.E2E_SCREENSHOT ?? '/tmp/stillwell-overview.png' });

@@ -30,7 +30,12 @@ for (const suite of SUITES) {
 const cpu = cpus()[0]?.model ?? 'unknown CPU';
 const machine = `${cpus().length} cores (${cpu}), ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node.js ${process.version}`;
 const date = new Date().toISOString().slice(0, 10);
-const fmt = (v) => (typeof v === 'number' ? (Math.abs(v) >= 100 ? Math.round(v).toLocaleString('en') : String(+v.toPrecision(3))) : String(v));
+const fmt = (v) =>
+  typeof v === 'number'
+    ? Math.abs(v) >= 100
+      ? Math.round(v).toLocaleString('en')
+      : String(+v.toPrecision(3))
+    : String(v);
 const table = [
   '| suite | measure | result | target | met | ratio to bare loop/insert |',
   '|---|---|---|---|---|---|',
@@ -48,5 +53,8 @@ const doc = readFileSync(file, 'utf8');
 const i = doc.indexOf(begin);
 const j = doc.indexOf(end);
 if (i < 0 || j < 0) throw new Error('docs/performance.md lacks the bench markers');
-writeFileSync(file, `${doc.slice(0, i + begin.length)}\nLast run: ${date}, on ${machine}.\n\n${table}\n${doc.slice(j)}`);
+writeFileSync(
+  file,
+  `${doc.slice(0, i + begin.length)}\nLast run: ${date}, on ${machine}.\n\n${table}\n${doc.slice(j)}`,
+);
 if (rows.some((r) => !r.ok)) process.stderr.write('Some targets were missed; see the table.\n');

@@ -10,7 +10,19 @@ const bin = (pkg, file) => join(root, 'node_modules', pkg, file);
 
 runTree([
   { name: 'simulator', args: [join(root, 'simulator/dist/cli.js'), ...process.argv.slice(2)] },
-  { name: 'gateway compiler', args: [bin('typescript', 'bin/tsc'), '-p', join(root, 'gateway/tsconfig.build.json'), '--watch', '--preserveWatchOutput'] },
-  { name: 'gateway', args: ['--watch-path', join(root, 'gateway/dist'), join(root, 'gateway/dist/main.js')] },
+  {
+    name: 'gateway compiler',
+    args: [
+      bin('typescript', 'bin/tsc'),
+      '-p',
+      join(root, 'gateway/tsconfig.build.json'),
+      '--watch',
+      '--preserveWatchOutput',
+    ],
+  },
+  {
+    name: 'gateway',
+    args: ['--watch-path', join(root, 'gateway/dist'), join(root, 'gateway/dist/main.js')],
+  },
   { name: 'vite', args: [bin('vite', 'bin/vite.js'), join(root, 'console')] },
 ]);

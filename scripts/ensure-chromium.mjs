@@ -7,7 +7,9 @@ const path = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 if (existsSync(path)) process.exit(0);
 const root = typeof process.getuid === 'function' && process.getuid() === 0;
 if (!root) {
-  console.error(`Chromium is not installed at ${path}. Install Debian's "chromium" package (sudo apt-get install chromium), or set CHROMIUM_PATH.`);
+  console.error(
+    `Chromium is not installed at ${path}. Install Debian's "chromium" package (sudo apt-get install chromium), or set CHROMIUM_PATH.`,
+  );
   process.exit(1);
 }
 console.log('Installing Debian chromium for the browser tests (about a minute)...');

@@ -30,7 +30,9 @@ export function runTree(specs, env = process.env) {
     const child = spawn(command, args, { env, stdio: 'inherit' });
     child.on('exit', (code, signal) => {
       if (stopping) return;
-      console.error(`[stillwell] ${name} stopped (${signal ?? `exit ${code}`}); stopping the rest.`);
+      console.error(
+        `[stillwell] ${name} stopped (${signal ?? `exit ${code}`}); stopping the rest.`,
+      );
       stop(code || 1);
     });
     children.push(child);

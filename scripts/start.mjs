@@ -13,7 +13,12 @@ runTree(
   [
     {
       name: 'simulator',
-      args: [join(root, 'simulator/dist/cli.js'), '--broker-port', brokerPort, ...process.argv.slice(2)],
+      args: [
+        join(root, 'simulator/dist/cli.js'),
+        '--broker-port',
+        brokerPort,
+        ...process.argv.slice(2),
+      ],
     },
     { name: 'gateway', args: [join(root, 'gateway/dist/main.js')] },
   ],

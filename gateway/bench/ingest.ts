@@ -9,7 +9,12 @@ import Database from 'better-sqlite3';
 import { connectAsync, type MqttClient } from 'mqtt';
 import { io } from 'socket.io-client';
 import { DEMO_RESERVOIR } from '@stillwell/shared/reservoirs';
-import { LIVE_EVENTS, LIVE_NAMESPACE, telemetryTopic, type Reading } from '@stillwell/shared/telemetry';
+import {
+  LIVE_EVENTS,
+  LIVE_NAMESPACE,
+  telemetryTopic,
+  type Reading,
+} from '@stillwell/shared/telemetry';
 
 const BULK = Number(process.env.BENCH_BULK ?? 100_000);
 const STEADY_RATE = 1000;
@@ -25,8 +30,15 @@ const freePort = () =>
     });
   });
 
-function startProcess(args: string[], env: Record<string, string>, ready: RegExp): Promise<ChildProcess> {
-  const child = spawn(process.execPath, args, { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+function startProcess(
+  args: string[],
+  env: Record<string, string>,
+  ready: RegExp,
+): Promise<ChildProcess> {
+  const child = spawn(process.execPath, args, {
+    env: { ...process.env, ...env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
   return new Promise((resolve, reject) => {
     let out = '';
     const onData = (d: Buffer) => {
@@ -50,9 +62,18 @@ const mid = (c: (typeof channels)[number]) => (c.min + c.max) / 2;
 async function main() {
   const dir = mkdtempSync(join(tmpdir(), 'stillwell-bench-'));
   const [mqttPort, httpPort] = [await freePort(), await freePort()];
-  const broker = await startProcess(['--input-type=module', '-e', BROKER], { P: String(mqttPort) }, /broker ready/);
+  const broker = await startProcess(
+    ['--input-type=module', '-e', BROKER],
+    { P: String(mqttPort) },
+    /broker ready/,
+  );
   const gateway = await startProcess(
-    [...(process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`] : []), join(here, '../dist/main.js')],
+    [
+      ...(process.env.BENCH_PROFILE_DIR
+        ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE_DIR}`]
+        : []),
+      join(here, '../dist/main.js'),
+    ],
     {
       PORT: String(httpPort),
       MQTT_URL: `mqtt://127.0.0.1:${mqttPort}`,
@@ -63,10 +84,14 @@ async function main() {
     /Stillwell is on/,
   );
   const base = `http://127.0.0.1:${httpPort}`;
-  const counters = async () => (await (await fetch(`${base}/api/telemetry/counters`)).json()) as { stored: number };
-  while ((await (await fetch(`${base}/api/health`)).status) !== 200) await new Promise((r) => setTimeout(r, 100));
+  const counters = async () =>
+    (await (await fetch(`${base}/api/telemetry/counters`)).json()) as { stored: number };
+  while ((await (await fetch(`${base}/api/health`)).status) !== 200)
+    await new Promise((r) => setTimeout(r, 100));
 
-  const client: MqttClient = await connectAsync(`mqtt://127.0.0.1:${mqttPort}`, { protocolVersion: 4 });
+  const client: MqttClient = await connectAsync(`mqtt://127.0.0.1:${mqttPort}`, {
+    protocolVersion: 4,
+  });
   const seqs = new Map<string, number>();
   const message = (i: number, t: number) => {
     const c = channels[i % channels.length]!;
@@ -81,7 +106,11 @@ async function main() {
       unit: c.unit,
       quality: 'good',
     });
-    return { topic: telemetryTopic(DEMO_RESERVOIR.id, c.deviceId), payload, key: `${c.deviceId}:${seq}` };
+    return {
+      topic: telemetryTopic(DEMO_RESERVOIR.id, c.deviceId),
+      payload,
+      key: `${c.deviceId}:${seq}`,
+    };
   };
 
   // 1. bulk throughput
@@ -95,7 +124,7 @@ async function main() {
   }
   await Promise.all(inflight);
   const published = performance.now();
-  let stored = 0;
+  let stored: number;
   while ((stored = (await counters()).stored) < BULK && performance.now() - t0 < 120_000) {
     await new Promise((r) => setTimeout(r, 20));
   }
@@ -125,9 +154,11 @@ async function main() {
     void client.publishAsync(m.topic, m.payload, { qos: 1 });
   }
   const until = performance.now() + 5000;
-  while (latencies.length < total && performance.now() < until) await new Promise((r) => setTimeout(r, 20));
+  while (latencies.length < total && performance.now() < until)
+    await new Promise((r) => setTimeout(r, 20));
   latencies.sort((a, b) => a - b);
-  const pct = (p: number) => latencies[Math.min(latencies.length - 1, Math.floor((p / 100) * latencies.length))] ?? NaN;
+  const pct = (p: number) =>
+    latencies[Math.min(latencies.length - 1, Math.floor((p / 100) * latencies.length))] ?? NaN;
 
   // 3. bare better-sqlite3: the same rows, the same schema, 1,000 per transaction
   const bare = new Database(join(dir, 'bare.sqlite'));
@@ -138,12 +169,23 @@ async function main() {
     value REAL NOT NULL, quality TEXT NOT NULL, received_at INTEGER NOT NULL);
     CREATE UNIQUE INDEX ux ON readings (reservoir_id, device_id, seq, time);
     CREATE INDEX ix ON readings (reservoir_id, channel, time);`);
-  const insert = bare.prepare(`INSERT OR IGNORE INTO readings (reservoir_id, device_id, channel, seq, time, value,
+  const insert =
+    bare.prepare(`INSERT OR IGNORE INTO readings (reservoir_id, device_id, channel, seq, time, value,
     quality, received_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)`);
   seqs.clear();
   const rows = Array.from({ length: BULK }, (_, i) => JSON.parse(message(i, now + i).payload));
   const many = bare.transaction((batch: typeof rows) => {
-    for (const r of batch) insert.run('lake-orrin', r.deviceId, r.channel, r.seq, Date.parse(r.time), r.value, r.quality, Date.now());
+    for (const r of batch)
+      insert.run(
+        'lake-orrin',
+        r.deviceId,
+        r.channel,
+        r.seq,
+        Date.parse(r.time),
+        r.value,
+        r.quality,
+        Date.now(),
+      );
   });
   const b0 = performance.now();
   for (let i = 0; i < rows.length; i += 1000) many(rows.slice(i, i + 1000));
@@ -158,17 +200,59 @@ async function main() {
   rmSync(dir, { recursive: true, force: true });
 
   const results = [
-    { name: 'ingest: readings stored per second (MQTT QoS 1 -> SQLite)', value: Math.round(gatewayRate), unit: 'readings/s', target: '>= 10000', ok: gatewayRate >= 10_000, ratio: gatewayRate / bareRate },
-    { name: 'ingest: readings lost in the bulk run', value: BULK - stored, unit: 'readings', target: '0', ok: stored === BULK },
-    { name: 'ingest: publish-to-socket latency p50 at 1000/s', value: +pct(50).toFixed(1), unit: 'ms', target: '-', ok: true },
-    { name: 'ingest: publish-to-socket latency p99 at 1000/s', value: +pct(99).toFixed(1), unit: 'ms', target: '< 100', ok: pct(99) < 100 },
-    { name: 'ingest: live readings received at 1000/s', value: latencies.length, unit: `of ${total}`, target: String(total), ok: latencies.length === total },
-    { name: 'bare better-sqlite3 batched inserts', value: Math.round(bareRate), unit: 'rows/s', target: '-', ok: true },
+    {
+      name: 'ingest: readings stored per second (MQTT QoS 1 -> SQLite)',
+      value: Math.round(gatewayRate),
+      unit: 'readings/s',
+      target: '>= 10000',
+      ok: gatewayRate >= 10_000,
+      ratio: gatewayRate / bareRate,
+    },
+    {
+      name: 'ingest: readings lost in the bulk run',
+      value: BULK - stored,
+      unit: 'readings',
+      target: '0',
+      ok: stored === BULK,
+    },
+    {
+      name: 'ingest: publish-to-socket latency p50 at 1000/s',
+      value: +pct(50).toFixed(1),
+      unit: 'ms',
+      target: '-',
+      ok: true,
+    },
+    {
+      name: 'ingest: publish-to-socket latency p99 at 1000/s',
+      value: +pct(99).toFixed(1),
+      unit: 'ms',
+      target: '< 100',
+      ok: pct(99) < 100,
+    },
+    {
+      name: 'ingest: live readings received at 1000/s',
+      value: latencies.length,
+      unit: `of ${total}`,
+      target: String(total),
+      ok: latencies.length === total,
+    },
+    {
+      name: 'bare better-sqlite3 batched inserts',
+      value: Math.round(bareRate),
+      unit: 'rows/s',
+      target: '-',
+      ok: true,
+    },
   ];
   if (json) console.log(JSON.stringify({ suite: 'gateway ingestion', results }));
   else {
-    console.log(`published ${BULK} in ${((published - t0) / 1000).toFixed(2)} s; stored ${stored} in ${elapsedS.toFixed(2)} s`);
-    for (const r of results) console.log(`${r.ok ? 'ok  ' : 'MISS'} ${r.name}: ${r.value} ${r.unit} (target ${r.target})${'ratio' in r ? `, ratio to bare ${(r.ratio as number).toFixed(3)}` : ''}`);
+    console.log(
+      `published ${BULK} in ${((published - t0) / 1000).toFixed(2)} s; stored ${stored} in ${elapsedS.toFixed(2)} s`,
+    );
+    for (const r of results)
+      console.log(
+        `${r.ok ? 'ok  ' : 'MISS'} ${r.name}: ${r.value} ${r.unit} (target ${r.target})${'ratio' in r ? `, ratio to bare ${(r.ratio as number).toFixed(3)}` : ''}`,
+      );
   }
 }
 

@@ -27,7 +27,11 @@ describe('logbook: append-only, hash-chained, tamper found and located', () => {
   it('appends linked entries and verifies the chain', async () => {
     const start = await firstSeq();
     for (let i = 0; i < 5; i += 1) {
-      const { seq } = await logbook.append({ kind: 'shift.note', actor, payload: { text: `note ${i}`, n: i } });
+      const { seq } = await logbook.append({
+        kind: 'shift.note',
+        actor,
+        payload: { text: `note ${i}`, n: i },
+      });
       expect(seq).toBe(start + i);
     }
     const report = await logbook.verify();
@@ -40,10 +44,12 @@ describe('logbook: append-only, hash-chained, tamper found and located', () => {
   it('refuses UPDATE and DELETE through plain SQL while the triggers stand', () => {
     const db = raw();
     try {
-      expect(() => db.prepare(`UPDATE logbook_entries SET payload = '{}' WHERE seq = 1`).run()).toThrow(
-        /append-only: UPDATE refused/,
+      expect(() =>
+        db.prepare(`UPDATE logbook_entries SET payload = '{}' WHERE seq = 1`).run(),
+      ).toThrow(/append-only: UPDATE refused/);
+      expect(() => db.prepare(`DELETE FROM logbook_entries WHERE seq = 1`).run()).toThrow(
+        /append-only: DELETE refused/,
       );
-      expect(() => db.prepare(`DELETE FROM logbook_entries WHERE seq = 1`).run()).toThrow(/append-only: DELETE refused/);
     } finally {
       db.close();
     }
@@ -55,7 +61,10 @@ describe('logbook: append-only, hash-chained, tamper found and located', () => {
     const db = raw();
     try {
       db.exec('DROP TRIGGER logbook_no_update');
-      db.prepare(`UPDATE logbook_entries SET payload = ? WHERE seq = ?`).run('{"n":99,"text":"edited"}', target);
+      db.prepare(`UPDATE logbook_entries SET payload = ? WHERE seq = ?`).run(
+        '{"n":99,"text":"edited"}',
+        target,
+      );
     } finally {
       db.close();
     }
@@ -100,7 +109,8 @@ describe('logbook: a deletion in the middle of an intact chain', () => {
   it('reports the entry after the gap as following missing entries', async () => {
     const logbook = gateway.app.get(LogbookService);
     const seqs: number[] = [];
-    for (let i = 0; i < 4; i += 1) seqs.push((await logbook.append({ kind: 'test.entry', actor: null, payload: { i } })).seq);
+    for (let i = 0; i < 4; i += 1)
+      seqs.push((await logbook.append({ kind: 'test.entry', actor: null, payload: { i } })).seq);
     const db = new Database(gateway.databasePath);
     try {
       db.exec('DROP TRIGGER logbook_no_delete');

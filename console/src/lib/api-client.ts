@@ -15,7 +15,6 @@ export class ApiError extends Error {
   }
 }
 
-
 export interface RequestOptions {
   signal?: AbortSignal;
   query?: Record<string, string>;

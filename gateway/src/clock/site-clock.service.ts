@@ -59,13 +59,20 @@ export class SiteClockService implements OnModuleInit {
   now(reservoirId: string): number {
     const anchor = this.anchors.get(reservoirId);
     if (!anchor) return this.wallClock();
-    const now = Math.max(anchor.lastNow, anchor.siteMs + (this.wallClock() - anchor.wallMs) * anchor.speed);
+    const now = Math.max(
+      anchor.lastNow,
+      anchor.siteMs + (this.wallClock() - anchor.wallMs) * anchor.speed,
+    );
     anchor.lastNow = now;
     return now;
   }
 
   snapshot(reservoirId: string): SiteClock {
     const anchor = this.anchors.get(reservoirId);
-    return { now: this.now(reservoirId), speed: anchor?.speed ?? 1, simulated: anchor !== undefined };
+    return {
+      now: this.now(reservoirId),
+      speed: anchor?.speed ?? 1,
+      simulated: anchor !== undefined,
+    };
   }
 }

@@ -1,5 +1,6 @@
 import { resolve } from 'node:path';
 import { z } from 'zod';
+import { accessEnv } from '../auth/access-env';
 
 const bool = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])
@@ -11,6 +12,7 @@ export const envSchema = z.object({
   HOST: z.string().default('127.0.0.1'),
   DATABASE_PATH: z.string().default(resolve(__dirname, '../../../data/stillwell.sqlite')),
   MQTT_URL: z.string().url().default('mqtt://127.0.0.1:1883'),
+  /** in demo mode the simulator's demo account is the default (scripts/start.mjs passes a random one) */
   MQTT_USERNAME: z.string().optional(),
   MQTT_PASSWORD: z.string().optional(),
   MQTT_CLIENT_ID: z.string().min(1).max(64).default('stillwell-gateway'),
@@ -23,8 +25,12 @@ export const envSchema = z.object({
   INGEST_FLUSH_MS: z.coerce.number().int().min(1).max(10000).default(50),
   /** how often the overview status is pushed to consoles, ms of wall time */
   STATUS_PUSH_MS: z.coerce.number().int().min(100).default(1000),
+  ...accessEnv,
 });
 export type Env = z.infer<typeof envSchema>;
+
+/** The simulator's fixed demo account for the gateway (loopback broker, demo mode only). */
+export const DEMO_MQTT_ACCOUNT = { username: 'stillwell-gateway', password: 'orrin-gap-demo-only' };
 
 /** ConfigModule's validate hook: refuse to start on a bad variable and say which. */
 export function validateEnv(raw: Record<string, unknown>): Env {
@@ -33,5 +39,18 @@ export function validateEnv(raw: Record<string, unknown>): Env {
     const problems = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ');
     throw new Error(`Invalid configuration: ${problems}`);
   }
-  return parsed.data;
+  const env = parsed.data;
+  if (!env.DEMO_MODE && !env.JWT_SECRET) {
+    throw new Error(
+      'Invalid configuration: JWT_SECRET: required outside demo mode (32+ random characters)',
+    );
+  }
+  if (env.DEMO_MODE && env.MQTT_USERNAME === undefined) {
+    return {
+      ...env,
+      MQTT_USERNAME: DEMO_MQTT_ACCOUNT.username,
+      MQTT_PASSWORD: env.MQTT_PASSWORD ?? DEMO_MQTT_ACCOUNT.password,
+    };
+  }
+  return env;
 }

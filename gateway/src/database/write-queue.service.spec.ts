@@ -14,7 +14,11 @@ describe('WriteQueueService', () => {
       running -= 1;
       return name;
     };
-    const results = await Promise.all([queue.run(job('a', 20)), queue.run(job('b', 1)), queue.run(job('c', 5))]);
+    const results = await Promise.all([
+      queue.run(job('a', 20)),
+      queue.run(job('b', 1)),
+      queue.run(job('c', 5)),
+    ]);
     expect(results).toEqual(['a', 'b', 'c']);
     expect(log).toEqual(['start a', 'end a', 'start b', 'end b', 'start c', 'end c']);
     expect(queue.depth).toBe(0);

@@ -15,6 +15,9 @@ export class HealthController {
   @Get()
   @HealthCheck()
   check() {
-    return this.health.check([() => this.db.pingCheck('database'), () => this.mqtt.check('broker')]);
+    return this.health.check([
+      () => this.db.pingCheck('database'),
+      () => this.mqtt.check('broker'),
+    ]);
   }
 }

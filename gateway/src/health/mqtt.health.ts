@@ -11,6 +11,8 @@ export class MqttHealthIndicator {
 
   check(key: string) {
     const check = this.indicator.check(key);
-    return this.mqtt.connected ? check.up() : check.down({ message: 'not connected to the broker' });
+    return this.mqtt.connected
+      ? check.up()
+      : check.down({ message: 'not connected to the broker' });
   }
 }

@@ -11,7 +11,9 @@ const COLUMN = { seq: 'e.seq', time: 'e.time', kind: 'e.kind', actorName: 'e.act
 /** Server-side paging, sorting and filtering of the logbook for the console's grid. */
 @Injectable()
 export class LogbookQueryService {
-  constructor(@InjectRepository(LogbookEntryRow) private readonly rows: Repository<LogbookEntryRow>) {}
+  constructor(
+    @InjectRepository(LogbookEntryRow) private readonly rows: Repository<LogbookEntryRow>,
+  ) {}
 
   async page(query: LogbookQueryDto): Promise<{ rows: LogbookEntry[]; total: number }> {
     const qb = this.rows.createQueryBuilder('e');

@@ -22,13 +22,17 @@ export class LogbookController {
   }
 
   @Get('head')
-  @ApiOkResponse({ description: 'The newest entry: its sequence number and hash, to publish or print' })
+  @ApiOkResponse({
+    description: 'The newest entry: its sequence number and hash, to publish or print',
+  })
   head(): Promise<LogbookHead> {
     return this.logbook.head();
   }
 
   @Get('verify')
-  @ApiOkResponse({ description: 'Recompute the whole chain now; optionally check a published head' })
+  @ApiOkResponse({
+    description: 'Recompute the whole chain now; optionally check a published head',
+  })
   async verify(@Query() q: VerifyQueryDto): Promise<VerificationReport> {
     if ((q.headSeq === undefined) !== (q.headHash === undefined)) {
       throw new BadRequestException('headSeq and headHash go together');
@@ -38,7 +42,9 @@ export class LogbookController {
   }
 
   @Get('verification')
-  @ApiOkResponse({ description: 'The result of the last scheduled verification (null before the first)' })
+  @ApiOkResponse({
+    description: 'The result of the last scheduled verification (null before the first)',
+  })
   last(): VerificationReport | null {
     return this.verifier.last;
   }

@@ -63,7 +63,10 @@ export class LogbookService {
     return this.writes.run(() => this.dataSource.transaction((tx) => this.appendWith(tx, entry)));
   }
 
-  private async appendWith(tx: EntityManager, entry: NewLogbookEntry): Promise<{ seq: number; hash: string }> {
+  private async appendWith(
+    tx: EntityManager,
+    entry: NewLogbookEntry,
+  ): Promise<{ seq: number; hash: string }> {
     const last = await tx.findOne(LogbookEntryRow, { where: {}, order: { seq: 'DESC' } });
     // Round-trip the payload through canonical JSON so what is stored is what is hashed
     // (undefined fields dropped, numbers in their canonical form).
@@ -89,7 +92,9 @@ export class LogbookService {
   }
 
   async head(): Promise<LogbookHead> {
-    const last = await this.dataSource.getRepository(LogbookEntryRow).findOne({ where: {}, order: { seq: 'DESC' } });
+    const last = await this.dataSource
+      .getRepository(LogbookEntryRow)
+      .findOne({ where: {}, order: { seq: 'DESC' } });
     return { seq: last?.seq ?? null, hash: last?.hash ?? null, time: last?.time ?? null };
   }
 

@@ -95,7 +95,8 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
          JOIN (SELECT reservoir_id, device_id, MAX(time) AS t FROM readings GROUP BY reservoir_id, device_id) m
            ON r.reservoir_id = m.reservoir_id AND r.device_id = m.device_id AND r.time = m.t`,
       );
-    for (const row of rows) this.sequences.seed(`${row.reservoir_id}/${row.device_id}`, row.seq, row.time);
+    for (const row of rows)
+      this.sequences.seed(`${row.reservoir_id}/${row.device_id}`, row.seq, row.time);
     this.mqtt.subscribe(TELEMETRY_SUBSCRIPTION, (topic, payload) => this.receive(topic, payload));
   }
 
@@ -110,11 +111,27 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
     const text = payload.toString('utf8');
     const parsed = parseTopic(topic);
     if (!parsed || parsed.kind !== 'telemetry' || !parsed.deviceId) {
-      return this.reject(topic, null, 'bad-topic', 'not a telemetry topic', text, payload.length, receivedAt);
+      return this.reject(
+        topic,
+        null,
+        'bad-topic',
+        'not a telemetry topic',
+        text,
+        payload.length,
+        receivedAt,
+      );
     }
     const reservoir = this.reservoirs.find(parsed.reservoirId);
     if (!reservoir) {
-      return this.reject(topic, null, 'unknown-reservoir', `no reservoir "${parsed.reservoirId}"`, text, payload.length, receivedAt);
+      return this.reject(
+        topic,
+        null,
+        'unknown-reservoir',
+        `no reservoir "${parsed.reservoirId}"`,
+        text,
+        payload.length,
+        receivedAt,
+      );
     }
     const { speed } = this.clock.snapshot(parsed.reservoirId);
     const result = validateTelemetry(text, {
@@ -126,7 +143,15 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
     });
     if (!result.ok) {
       const { reason, detail } = result.rejection;
-      return this.reject(topic, parsed.reservoirId, reason, detail, text, payload.length, receivedAt);
+      return this.reject(
+        topic,
+        parsed.reservoirId,
+        reason,
+        detail,
+        text,
+        payload.length,
+        receivedAt,
+      );
     }
     const r = result.reading;
     const verdict = this.sequences.observe(`${parsed.reservoirId}/${r.deviceId}`, r.seq, r.timeMs);
@@ -172,7 +197,8 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
   flush(): Promise<void> {
     clearTimeout(this.flushTimer);
     this.flushTimer = undefined;
-    if (!this.readings.length && !this.quarantine.length && !this.gaps.length) return this.writes.run(() => undefined);
+    if (!this.readings.length && !this.quarantine.length && !this.gaps.length)
+      return this.writes.run(() => undefined);
     const readings = this.readings;
     const fresh = this.fresh;
     const quarantine = this.quarantine;

@@ -42,7 +42,9 @@ export class LiveGateway implements OnGatewayInit, OnModuleDestroy {
       this.ingestion.stored$.subscribe(({ reservoirId, readings }) =>
         this.server.to(room(reservoirId)).emit(LIVE_EVENTS.readings, readings),
       ),
-      this.status.status$.subscribe((s) => this.server.to(room(s.reservoirId)).emit(LIVE_EVENTS.status, s)),
+      this.status.status$.subscribe((s) =>
+        this.server.to(room(s.reservoirId)).emit(LIVE_EVENTS.status, s),
+      ),
     );
   }
 
@@ -51,11 +53,15 @@ export class LiveGateway implements OnGatewayInit, OnModuleDestroy {
   }
 
   @SubscribeMessage(LIVE_EVENTS.subscribe)
-  async subscribe(@ConnectedSocket() socket: Socket, @MessageBody() body: unknown): Promise<SubscribeAck> {
+  async subscribe(
+    @ConnectedSocket() socket: Socket,
+    @MessageBody() body: unknown,
+  ): Promise<SubscribeAck> {
     const parsed = subscribeRequestSchema.safeParse(body);
     if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
     const { reservoirId } = parsed.data;
-    if (!this.reservoirs.find(reservoirId)) return { ok: false, error: `No reservoir "${reservoirId}"` };
+    if (!this.reservoirs.find(reservoirId))
+      return { ok: false, error: `No reservoir "${reservoirId}"` };
     await socket.join(room(reservoirId));
     socket.emit(LIVE_EVENTS.status, this.status.status(reservoirId));
     this.logger.debug(`${socket.id} follows ${reservoirId}`);
@@ -63,7 +69,10 @@ export class LiveGateway implements OnGatewayInit, OnModuleDestroy {
   }
 
   @SubscribeMessage(LIVE_EVENTS.unsubscribe)
-  async unsubscribe(@ConnectedSocket() socket: Socket, @MessageBody() body: unknown): Promise<SubscribeAck> {
+  async unsubscribe(
+    @ConnectedSocket() socket: Socket,
+    @MessageBody() body: unknown,
+  ): Promise<SubscribeAck> {
     const parsed = subscribeRequestSchema.safeParse(body);
     if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
     await socket.leave(room(parsed.data.reservoirId));

@@ -1,7 +1,16 @@
 import type { Driver, QueryRunner } from 'typeorm';
 import type { Reading } from './reading.entity';
 
-const COLUMNS = ['reservoir_id', 'device_id', 'channel', 'seq', 'time', 'value', 'quality', 'received_at'] as const;
+const COLUMNS = [
+  'reservoir_id',
+  'device_id',
+  'channel',
+  'seq',
+  'time',
+  'value',
+  'quality',
+  'received_at',
+] as const;
 /** Rows per statement: 8 parameters each, far below SQLite's and PostgreSQL's parameter limits. */
 export const ROWS_PER_STATEMENT = 1000;
 
@@ -25,9 +34,20 @@ export class ReadingInserter {
       const chunk = rows.slice(i, i + ROWS_PER_STATEMENT);
       const params: Array<string | number> = [];
       for (const r of chunk) {
-        params.push(r.reservoirId, r.deviceId, r.channel, r.seq, r.time, r.value, r.quality, r.receivedAt);
+        params.push(
+          r.reservoirId,
+          r.deviceId,
+          r.channel,
+          r.seq,
+          r.time,
+          r.value,
+          r.quality,
+          r.receivedAt,
+        );
       }
-      const result = (await runner.query(this.statement(chunk.length), params, true)) as { affected?: number };
+      const result = (await runner.query(this.statement(chunk.length), params, true)) as {
+        affected?: number;
+      };
       inserted += result.affected ?? 0;
     }
     return inserted;

@@ -16,7 +16,8 @@ const DEFAULT_LIMIT = 20_000;
 export class ReadingsService {
   constructor(
     @InjectRepository(Reading) private readonly readings: Repository<Reading>,
-    @InjectRepository(QuarantinedMessage) private readonly quarantine: Repository<QuarantinedMessage>,
+    @InjectRepository(QuarantinedMessage)
+    private readonly quarantine: Repository<QuarantinedMessage>,
     @InjectRepository(SequenceGap) private readonly gaps: Repository<SequenceGap>,
     private readonly reservoirs: ReservoirsService,
     private readonly clock: SiteClockService,
@@ -33,7 +34,8 @@ export class ReadingsService {
     if (!def) throw new NotFoundException(`Reservoir "${reservoirId}" has no channel "${channel}"`);
     const to = range.to ? Date.parse(range.to) : this.clock.now(reservoirId);
     const from = range.from ? Date.parse(range.from) : to - DEFAULT_WINDOW_MS;
-    if (from > to) throw new BadRequestException(`from (${range.from}) is after to (${range.to ?? 'now'})`);
+    if (from > to)
+      throw new BadRequestException(`from (${range.from}) is after to (${range.to ?? 'now'})`);
     const rows = await this.readings
       .createQueryBuilder('r')
       .select(['r.time', 'r.value', 'r.quality'])

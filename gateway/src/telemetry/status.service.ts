@@ -78,7 +78,8 @@ export class StatusService implements OnApplicationBootstrap, OnModuleDestroy {
 
   onModuleDestroy(): void {
     this.subscription?.unsubscribe();
-    if (this.scheduler.doesExist('interval', 'status-push')) this.scheduler.deleteInterval('status-push');
+    if (this.scheduler.doesExist('interval', 'status-push'))
+      this.scheduler.deleteInterval('status-push');
   }
 
   pushAll(): void {
@@ -107,7 +108,8 @@ export class StatusService implements OnApplicationBootstrap, OnModuleDestroy {
         },
       ];
     });
-    const usable = (id: string) => channels.find((c) => c.channel === id && c.quality === 'good' && !c.stale);
+    const usable = (id: string) =>
+      channels.find((c) => c.channel === id && c.quality === 'good' && !c.stale);
     const pool = definition.poolChannels.map(usable).find((c) => c !== undefined);
     const role = (r: string) => {
       const def = definition.channels.find((c) => c.role === r);

@@ -18,7 +18,9 @@ export class TelemetryController {
   ) {}
 
   @Get('reservoirs/:id/status')
-  @ApiOkResponse({ description: 'Latest value of every channel, pool, freeboard, rate of rise, site clock' })
+  @ApiOkResponse({
+    description: 'Latest value of every channel, pool, freeboard, rate of rise, site clock',
+  })
   getStatus(@Param('id') id: string): ReservoirStatus {
     return this.status.status(id);
   }
@@ -40,7 +42,9 @@ export class TelemetryController {
   }
 
   @Get('telemetry/quarantine')
-  @ApiOkResponse({ description: 'Most recent quarantined messages with their reasons and raw payloads' })
+  @ApiOkResponse({
+    description: 'Most recent quarantined messages with their reasons and raw payloads',
+  })
   getQuarantine(@Query() query: QuarantineQueryDto): Promise<QuarantinedMessage[]> {
     return this.readings.recentQuarantine(query.limit);
   }

@@ -31,7 +31,9 @@ describe('canonical JSON after RFC 8785', () => {
         '"\\u00f6": "Latin Small Letter O With Diaeresis"}',
     );
     // read the keys from the text: Object.keys would put the integer-like "1" first
-    const keys = [...canonicalize(input).matchAll(/"((?:[^"\\]|\\.)*)":/g)].map((m) => JSON.parse(`"${m[1]}"`));
+    const keys = [...canonicalize(input).matchAll(/"((?:[^"\\]|\\.)*)":/g)].map((m) =>
+      JSON.parse(`"${m[1]}"`),
+    );
     expect(keys).toEqual(['\r', '1', '\u0080', '\u00f6', '\u20ac', '\ud83d\ude00', '\ufb33']);
   });
   it.each([
@@ -51,7 +53,9 @@ describe('canonical JSON after RFC 8785', () => {
 describe('SHA-256', () => {
   // FIPS 180-2 Appendix B.1 test vector: SHA-256("abc")
   it('matches the FIPS 180-2 "abc" vector', async () => {
-    expect(await sha256Hex('abc')).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
+    expect(await sha256Hex('abc')).toBe(
+      'ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad',
+    );
   });
 });
 
@@ -86,7 +90,12 @@ describe('logbook chain', () => {
 
   it('verifies an intact chain and reports its head', async () => {
     const entries = await chain(5);
-    expect(await verifyEntries(entries)).toEqual({ ok: true, count: 5, headSeq: 5, headHash: entries[4]!.hash });
+    expect(await verifyEntries(entries)).toEqual({
+      ok: true,
+      count: 5,
+      headSeq: 5,
+      headHash: entries[4]!.hash,
+    });
   });
 
   it('names the first changed entry', async () => {
@@ -101,20 +110,29 @@ describe('logbook chain', () => {
   it('finds a removed entry', async () => {
     const entries = await chain(5);
     entries.splice(1, 1);
-    expect((await verifyEntries(entries)).firstBad).toMatchObject({ seq: 3, problem: 'missing-entries' });
+    expect((await verifyEntries(entries)).firstBad).toMatchObject({
+      seq: 3,
+      problem: 'missing-entries',
+    });
   });
 
   it('finds an entry rewritten with a fresh hash: the next link breaks', async () => {
     const entries = await chain(4);
     const forged = { ...entries[1]!, payload: { text: 'forged' } };
     entries[1] = { ...forged, hash: await hashEntry(forged) };
-    expect((await verifyEntries(entries)).firstBad).toMatchObject({ seq: 3, problem: 'broken-link' });
+    expect((await verifyEntries(entries)).firstBad).toMatchObject({
+      seq: 3,
+      problem: 'broken-link',
+    });
   });
 
   it('continues from a page boundary', async () => {
     const entries = await chain(6);
     const first = await verifyEntries(entries.slice(0, 3));
-    const second = await verifyEntries(entries.slice(3), { seq: first.headSeq!, hash: first.headHash! });
+    const second = await verifyEntries(entries.slice(3), {
+      seq: first.headSeq!,
+      hash: first.headHash!,
+    });
     expect(second).toMatchObject({ ok: true, count: 3, headSeq: 6 });
   });
 });

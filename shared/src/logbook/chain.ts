@@ -75,11 +75,17 @@ export async function verifyEntries(
       );
     }
     if (entry.prevHash !== prev.hash) {
-      return bad('broken-link', `entry ${entry.seq} names ${entry.prevHash} as the previous hash, not ${prev.hash}`);
+      return bad(
+        'broken-link',
+        `entry ${entry.seq} names ${entry.prevHash} as the previous hash, not ${prev.hash}`,
+      );
     }
     const actual = await hashEntry(entry);
     if (actual !== entry.hash) {
-      return bad('hash-mismatch', `entry ${entry.seq} hashes to ${actual}, but records ${entry.hash}`);
+      return bad(
+        'hash-mismatch',
+        `entry ${entry.seq} hashes to ${actual}, but records ${entry.hash}`,
+      );
     }
     prev = { seq: entry.seq, hash: entry.hash };
     count += 1;

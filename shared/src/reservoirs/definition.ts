@@ -32,7 +32,13 @@ export const channelDefinitionSchema = z.strictObject({
 });
 export type ChannelDefinition = z.infer<typeof channelDefinitionSchema>;
 
-export const THRESHOLD_KINDS = ['alert', 'spillway-crest', 'auxiliary-spillway', 'crest-less-freeboard', 'dam-crest'] as const;
+export const THRESHOLD_KINDS = [
+  'alert',
+  'spillway-crest',
+  'auxiliary-spillway',
+  'crest-less-freeboard',
+  'dam-crest',
+] as const;
 export type ThresholdKind = (typeof THRESHOLD_KINDS)[number];
 
 export const thresholdSchema = z.strictObject({
@@ -66,13 +72,23 @@ export const reservoirDefinitionSchema = z
   .superRefine((def, ctx) => {
     const ids = new Set(def.channels.map((c) => c.id));
     def.poolChannels.forEach((id, i) => {
-      if (!ids.has(id)) ctx.addIssue({ code: 'custom', path: ['poolChannels', i], message: `no channel "${id}"` });
+      if (!ids.has(id))
+        ctx.addIssue({ code: 'custom', path: ['poolChannels', i], message: `no channel "${id}"` });
     });
     def.channels.forEach((c, i) => {
-      if (c.min >= c.max) ctx.addIssue({ code: 'custom', path: ['channels', i, 'max'], message: 'max must exceed min' });
+      if (c.min >= c.max)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['channels', i, 'max'],
+          message: 'max must exceed min',
+        });
     });
     if (def.damCrestElevation <= def.normalMaxPool) {
-      ctx.addIssue({ code: 'custom', path: ['damCrestElevation'], message: 'must be above the normal maximum pool' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['damCrestElevation'],
+        message: 'must be above the normal maximum pool',
+      });
     }
   });
 export type ReservoirDefinition = z.infer<typeof reservoirDefinitionSchema>;

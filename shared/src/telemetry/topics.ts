@@ -16,7 +16,9 @@ export function isTopicSegment(value: string): boolean {
 
 function segment(value: string, what: string): string {
   if (!isTopicSegment(value)) {
-    throw new RangeError(`${what} "${value}" is not a valid topic segment (lower-case letters, digits, '-')`);
+    throw new RangeError(
+      `${what} "${value}" is not a valid topic segment (lower-case letters, digits, '-')`,
+    );
   }
   return value;
 }

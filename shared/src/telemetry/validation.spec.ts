@@ -46,7 +46,10 @@ describe('telemetry message schema', () => {
 describe('validateTelemetry', () => {
   it('accepts a good reading and normalises the time to UTC', () => {
     const r = check({ time: '2026-12-01T12:59:30+01:00' });
-    expect(r).toMatchObject({ ok: true, reading: { value: 204.51, time: '2026-12-01T11:59:30.000Z' } });
+    expect(r).toMatchObject({
+      ok: true,
+      reading: { value: 204.51, time: '2026-12-01T11:59:30.000Z' },
+    });
   });
   it('converts a reading in another unit of the same quantity to the channel unit', () => {
     const r = check({ value: 671, unit: 'ft' });
@@ -63,11 +66,21 @@ describe('validateTelemetry', () => {
   });
   it.each([
     ['an unknown channel', { channel: 'pool.sonar' }, 'unknown-channel', /pool\.sonar/],
-    ['a value above the physical range', { value: 250 }, 'out-of-range', /250 m is outside .*165\.\.220/],
+    [
+      'a value above the physical range',
+      { value: 250 },
+      'out-of-range',
+      /250 m is outside .*165\.\.220/,
+    ],
     ['a value below it', { value: 100 }, 'out-of-range', /outside/],
     ['a unit of another quantity', { unit: 'm3/s' }, 'wrong-unit', /not a unit of length/],
     ['a time far in the future', { time: '2026-12-01T12:10:00Z' }, 'future-time', /600 s ahead/],
-    ['a channel of another device', { channel: 'inflow', deviceId: 'pool-radar', unit: 'm3/s', value: 5 }, 'device-mismatch', /belongs to device "inflow-gauge"/],
+    [
+      'a channel of another device',
+      { channel: 'inflow', deviceId: 'pool-radar', unit: 'm3/s', value: 5 },
+      'device-mismatch',
+      /belongs to device "inflow-gauge"/,
+    ],
   ])('quarantines %s with a reason that says what is wrong', (_what, over, reason, detail) => {
     const r = check(over);
     expect(r.ok).toBe(false);

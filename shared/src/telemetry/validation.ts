@@ -26,7 +26,8 @@ export interface AcceptedReading extends TelemetryMessage {
   timeMs: number;
 }
 
-export type ValidationResult = { ok: true; reading: AcceptedReading } | { ok: false; rejection: Rejection };
+export type ValidationResult =
+  { ok: true; reading: AcceptedReading } | { ok: false; rejection: Rejection };
 
 export interface ValidationContext {
   /** the device id from the topic the message came on */
@@ -62,7 +63,8 @@ export function validateTelemetry(payload: string, ctx: ValidationContext): Vali
     );
   }
   const channel = ctx.channels.get(msg.channel);
-  if (!channel) return reject('unknown-channel', `channel "${msg.channel}" is not defined for this reservoir`);
+  if (!channel)
+    return reject('unknown-channel', `channel "${msg.channel}" is not defined for this reservoir`);
   if (channel.deviceId !== msg.deviceId) {
     return reject(
       'device-mismatch',
@@ -70,7 +72,10 @@ export function validateTelemetry(payload: string, ctx: ValidationContext): Vali
     );
   }
   if (quantityOf(msg.unit) !== quantityOf(channel.unit as Unit)) {
-    return reject('wrong-unit', `unit "${msg.unit}" is not a unit of ${quantityOf(channel.unit)} (channel unit ${channel.unit})`);
+    return reject(
+      'wrong-unit',
+      `unit "${msg.unit}" is not a unit of ${quantityOf(channel.unit)} (channel unit ${channel.unit})`,
+    );
   }
   const value = convert(msg.value, msg.unit, channel.unit);
   if (value < channel.min || value > channel.max) {

@@ -30,7 +30,9 @@ export class InitialSchema1764633600000 implements MigrationInterface {
     await q.query(
       `CREATE UNIQUE INDEX "ux_readings_device_seq" ON "readings" ("reservoir_id", "device_id", "seq", "time")`,
     );
-    await q.query(`CREATE INDEX "ix_readings_channel_time" ON "readings" ("reservoir_id", "channel", "time")`);
+    await q.query(
+      `CREATE INDEX "ix_readings_channel_time" ON "readings" ("reservoir_id", "channel", "time")`,
+    );
     await q.query(`CREATE TABLE "quarantined_messages" (
       "id" integer PRIMARY KEY AUTOINCREMENT NOT NULL,
       "received_at" integer NOT NULL,
@@ -40,7 +42,9 @@ export class InitialSchema1764633600000 implements MigrationInterface {
       "detail" text NOT NULL,
       "payload" text NOT NULL,
       "payload_bytes" integer NOT NULL)`);
-    await q.query(`CREATE INDEX "ix_quarantine_received" ON "quarantined_messages" ("received_at")`);
+    await q.query(
+      `CREATE INDEX "ix_quarantine_received" ON "quarantined_messages" ("received_at")`,
+    );
     await q.query(`CREATE TABLE "sequence_gaps" (
       "id" integer PRIMARY KEY AUTOINCREMENT NOT NULL,
       "reservoir_id" text NOT NULL,
@@ -52,7 +56,13 @@ export class InitialSchema1764633600000 implements MigrationInterface {
   }
 
   async down(q: QueryRunner): Promise<void> {
-    for (const table of ['sequence_gaps', 'quarantined_messages', 'readings', 'reservoir_versions', 'reservoirs']) {
+    for (const table of [
+      'sequence_gaps',
+      'quarantined_messages',
+      'readings',
+      'reservoir_versions',
+      'reservoirs',
+    ]) {
       await q.query(`DROP TABLE "${table}"`);
     }
   }

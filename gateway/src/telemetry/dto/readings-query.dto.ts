@@ -5,7 +5,9 @@ import { IsISO8601, IsInt, IsOptional, Max, Min } from 'class-validator';
 export const MAX_READINGS = 100_000;
 
 export class ReadingsQueryDto {
-  @ApiPropertyOptional({ description: 'start of the range, ISO 8601 (default: 6 hours before `to`)' })
+  @ApiPropertyOptional({
+    description: 'start of the range, ISO 8601 (default: 6 hours before `to`)',
+  })
   @IsOptional()
   @IsISO8601({ strict: true })
   from?: string;
@@ -15,7 +17,9 @@ export class ReadingsQueryDto {
   @IsISO8601({ strict: true })
   to?: string;
 
-  @ApiPropertyOptional({ description: `most recent readings kept when the range holds more (1..${MAX_READINGS})` })
+  @ApiPropertyOptional({
+    description: `most recent readings kept when the range holds more (1..${MAX_READINGS})`,
+  })
   @IsOptional()
   @Type(() => Number)
   @IsInt()
@@ -25,7 +29,9 @@ export class ReadingsQueryDto {
 }
 
 export class QuarantineQueryDto {
-  @ApiPropertyOptional({ description: 'how many of the most recent quarantined messages (1..1000)' })
+  @ApiPropertyOptional({
+    description: 'how many of the most recent quarantined messages (1..1000)',
+  })
   @IsOptional()
   @Type(() => Number)
   @IsInt()
