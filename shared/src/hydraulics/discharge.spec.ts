@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import fc from 'fast-check';
 import { DEMO_RESERVOIR } from '../reservoirs/demo.js';
 import { FOOT_M, CUBIC_FOOT_M3, STANDARD_GRAVITY as G } from '../units/units.js';
-import type { GatedSpillway, LowLevelOutlet, Structure } from './schema.js';
+import type { Structure } from './schema.js';
+import { testOutlet, testSpillway } from './testing/structures.js';
 import {
   dischargeBreakdown,
   structureDischarge,
@@ -12,38 +12,6 @@ import {
 import { gateBayFlow, valveLossCoefficient, villemonteFactor } from './formulas.js';
 
 const none: OutletSettings = { gates: {}, valves: {} };
-const gate = (id: string, width = 12, cg = 0.68) => ({
-  id,
-  channel: `${id}.opening`,
-  type: 'radial' as const,
-  width,
-  maxOpening: 9,
-  orificeCoefficient: cg,
-  travelSpeed: 0.005,
-});
-const spillway = (c = 2.1, cg = 0.68): GatedSpillway => ({
-  id: 'spill',
-  name: 'Spillway',
-  kind: 'gated-spillway',
-  crestElevation: 200,
-  coefficient: c,
-  gates: [gate('g1', 12, cg)],
-});
-const outlet = (over: Partial<LowLevelOutlet> = {}): LowLevelOutlet => ({
-  id: 'llo',
-  name: 'Outlet',
-  kind: 'low-level-outlet',
-  valveChannel: 'outlet.valve',
-  diameter: 1.8,
-  length: 60,
-  outletElevation: 173,
-  frictionFactor: 0.015,
-  entranceLossCoefficient: 0.5,
-  valveLossCoefficient: 0.2,
-  travelSpeed: 0.5,
-  ...over,
-});
-
 describe('weirs', () => {
   it('ogee crest: Q = C Le H^1.5', () => {
     const s: Structure = {
@@ -101,7 +69,7 @@ describe('weirs', () => {
 });
 
 describe('gated spillway bay', () => {
-  const s = spillway();
+  const s = testSpillway();
   it('orifice under the gate: Q = Cg G B sqrt(2 g Hc), Hc to the centre of the opening', () => {
     expect(structureDischarge(s, 207, { gates: { g1: 1 }, valves: {} })).toBeCloseTo(
       0.68 * 1 * 12 * Math.sqrt(2 * G * 6.5),
@@ -147,16 +115,15 @@ describe('low-level outlet', () => {
   it('pipe flow Q = a sqrt(2gH / (1 + Ke + fL/D + Kv)) when fully open', () => {
     const a = (Math.PI / 4) * 1.8 ** 2;
     const expected = a * Math.sqrt((2 * G * 31.5) / (1 + 0.5 + (0.015 * 60) / 1.8 + 0.2));
-    expect(structureDischarge(outlet(), 204.5, { gates: {}, valves: { llo: 100 } })).toBeCloseTo(
-      expected,
-      9,
-    );
-    expect(structureDischarge(outlet(), 204.5, { gates: {}, valves: { llo: 0 } })).toBe(0);
-    expect(structureDischarge(outlet(), 204.5, none)).toBe(0);
+    expect(
+      structureDischarge(testOutlet(), 204.5, { gates: {}, valves: { llo: 100 } }),
+    ).toBeCloseTo(expected, 9);
+    expect(structureDischarge(testOutlet(), 204.5, { gates: {}, valves: { llo: 0 } })).toBe(0);
+    expect(structureDischarge(testOutlet(), 204.5, none)).toBe(0);
   });
   it('FHWA HEC-22 (3rd ed.) Example 8-5: D = 0.15 m orifice, Ho = 0.925 m, Co = 0.6 gives 0.045 m3/s (read)', () => {
     // An orifice is a conduit whose losses add up to 1/Co^2 - 1 velocity heads.
-    const s = outlet({
+    const s = testOutlet({
       diameter: 0.15,
       length: 1e-6,
       frictionFactor: 1e-9,
@@ -174,19 +141,19 @@ describe('low-level outlet', () => {
         valveLossCoefficient(0.2, (p + 1) / 100),
       );
     const a = (Math.PI / 4) * 1.8 ** 2;
-    const q = structureDischarge(outlet(), 204.5, { gates: {}, valves: { llo: 0.1 } });
+    const q = structureDischarge(testOutlet(), 204.5, { gates: {}, valves: { llo: 0.1 } });
     expect(q / (0.62 * 0.001 * a * Math.sqrt(2 * G * 31.5))).toBeCloseTo(1, 2);
   });
   it('tailwater above the outlet centreline reduces the head (submerged outlet)', () => {
     const open = { gates: {}, valves: { llo: 100 } };
-    const free = structureDischarge(outlet(), 204.5, open, 170);
-    expect(free).toBeCloseTo(structureDischarge(outlet(), 204.5, open), 12);
-    const sub = structureDischarge(outlet(), 204.5, open, 183.5);
+    const free = structureDischarge(testOutlet(), 204.5, open, 170);
+    expect(free).toBeCloseTo(structureDischarge(testOutlet(), 204.5, open), 12);
+    const sub = structureDischarge(testOutlet(), 204.5, open, 183.5);
     expect(sub / free).toBeCloseTo(Math.sqrt(21 / 31.5), 9);
-    expect(structureDischarge(outlet(), 204.5, open, 205)).toBe(0);
+    expect(structureDischarge(testOutlet(), 204.5, open, 205)).toBe(0);
   });
   it('order of magnitude (common practice): a 1.5 m outlet under 50 m head lowers a 3 km2 pool by cm per hour', () => {
-    const s = outlet({ diameter: 1.5, outletElevation: 150 });
+    const s = testOutlet({ diameter: 1.5, outletElevation: 150 });
     const q = structureDischarge(s, 200, { gates: {}, valves: { llo: 100 } });
     expect(q).toBeGreaterThan(20);
     expect(q).toBeLessThan(60);
@@ -253,98 +220,5 @@ describe('the demo reservoir (Lake Orrin)', () => {
     ]);
     expect(b.total).toBeCloseTo(2041.2, 1);
     expect(b.structures[0]!.gates!.map((g) => g.regime)).toEqual(['weir', 'weir', 'weir']);
-  });
-});
-
-// Random structures for the monotonicity and continuity properties.
-const arbStructure: fc.Arbitrary<Structure> = fc.oneof(
-  fc
-    .record({
-      c: fc.double({ min: 1, max: 2.5, noNaN: true }),
-      l: fc.double({ min: 1, max: 200, noNaN: true }),
-    })
-    .map(({ c, l }): Structure => ({
-      id: 'o',
-      name: 'o',
-      kind: 'ogee-crest',
-      crestElevation: 100,
-      effectiveLength: l,
-      coefficient: c,
-    })),
-  fc
-    .record({
-      c: fc.double({ min: 1.3, max: 2.5, noNaN: true }),
-      cg: fc.double({ min: 0.4, max: 0.9, noNaN: true }),
-    })
-    .map(({ c, cg }): Structure => ({ ...spillway(c, cg), crestElevation: 100 })),
-  fc
-    .record({
-      d: fc.double({ min: 0.2, max: 3, noNaN: true }),
-      k: fc.double({ min: 0, max: 2, noNaN: true }),
-    })
-    .map(({ d, k }): Structure =>
-      outlet({ diameter: d, valveLossCoefficient: k, outletElevation: 95, id: 'llo' }),
-    ),
-);
-const settingsOf = (o: number): OutletSettings => ({
-  gates: { g1: o },
-  valves: { llo: (o / 9) * 100 },
-});
-
-describe('properties: continuous and non-decreasing in pool and opening', () => {
-  it('non-decreasing in pool elevation', () => {
-    fc.assert(
-      fc.property(
-        arbStructure,
-        fc.double({ min: 90, max: 115, noNaN: true }),
-        fc.double({ min: 0, max: 5, noNaN: true }),
-        fc.double({ min: 0, max: 9, noNaN: true }),
-        fc.option(fc.double({ min: 90, max: 112, noNaN: true }), { nil: undefined }),
-        (s, h, dh, o, tw) => {
-          const a = structureDischarge(s, h, settingsOf(o), tw);
-          const b = structureDischarge(s, h + dh, settingsOf(o), tw);
-          expect(b).toBeGreaterThanOrEqual(a);
-        },
-      ),
-      { numRuns: 2000 },
-    );
-  });
-  it('non-decreasing in each opening', () => {
-    fc.assert(
-      fc.property(
-        arbStructure,
-        fc.double({ min: 90, max: 115, noNaN: true }),
-        fc.double({ min: 0, max: 9, noNaN: true }),
-        fc.double({ min: 0, max: 9, noNaN: true }),
-        (s, h, o1, o2) => {
-          const [lo, hi] = o1 < o2 ? [o1, o2] : [o2, o1];
-          expect(structureDischarge(s, h, settingsOf(hi))).toBeGreaterThanOrEqual(
-            structureDischarge(s, h, settingsOf(lo)),
-          );
-        },
-      ),
-      { numRuns: 2000 },
-    );
-  });
-  it('continuous in pool and opening (small change in, small change out), including at regime boundaries', () => {
-    const eps = 1e-9;
-    fc.assert(
-      fc.property(
-        arbStructure,
-        fc.double({ min: 0, max: 9, noNaN: true }),
-        fc.constantFrom(0, 1, 2, 3),
-        fc.double({ min: -2, max: 12, noNaN: true }),
-        (s, o, mode, x) => {
-          // mode 0: random pool; 1: pool at the gate lip; 2: pool at the crest; 3: pool at the opening centre
-          const h = mode === 0 ? 100 + x : mode === 1 ? 100 + o : mode === 2 ? 100 : 100 + o / 2;
-          const q = structureDischarge(s, h, settingsOf(o));
-          const scale = 1e-3 * (1 + q);
-          expect(Math.abs(structureDischarge(s, h + eps, settingsOf(o)) - q)).toBeLessThan(scale);
-          expect(Math.abs(structureDischarge(s, h - eps, settingsOf(o)) - q)).toBeLessThan(scale);
-          expect(Math.abs(structureDischarge(s, h, settingsOf(o + eps)) - q)).toBeLessThan(scale);
-        },
-      ),
-      { numRuns: 2000 },
-    );
   });
 });

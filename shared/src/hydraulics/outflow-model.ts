@@ -108,6 +108,12 @@ export function compileOutflow(structures: readonly Structure[]): OutflowModel {
   const gb = col(bays, 3);
   const gmax = col(bays, 4);
   const gk = idx(bays, 5);
+  // bays identical to the one before (same crest, coefficients, width, maximum): when they are also
+  // open by the same amount their flow is the same, so it is computed once (gates usually come in
+  // identical sets and are often moved together)
+  const sameAsPrev = Uint8Array.from(bays, (r, i) =>
+    i > 0 && r.slice(0, 5).every((v, j) => v === bays[i - 1]![j]) ? 1 : 0,
+  );
   const no = outlets.length;
   const oz = col(outlets, 0);
   const ok = idx(outlets, 6);
@@ -132,12 +138,18 @@ export function compileOutflow(structures: readonly Structure[]): OutflowModel {
         const z = wz[i]!;
         q += weirFlow(wc[i]!, wl[i]!, h - z, tw > z ? tw - z : 0);
       }
+      let prevOpening = NaN;
+      let prevQ = 0;
       for (let i = 0; i < ng; i++) {
         const z = gz[i]!;
         const max = gmax[i]!;
         const x = op[gk[i]!]!;
         const opening = x > 0 ? (x < max ? x : max) : 0;
-        q += gateBayFlow(gc[i]!, gcg[i]!, gb[i]!, h - z, opening, tw > z ? tw - z : 0);
+        if (sameAsPrev[i] !== 1 || opening !== prevOpening) {
+          prevQ = gateBayFlow(gc[i]!, gcg[i]!, gb[i]!, h - z, opening, tw > z ? tw - z : 0);
+          prevOpening = opening;
+        }
+        q += prevQ;
       }
       for (let i = 0; i < no; i++) {
         const z = oz[i]!;
