@@ -2,8 +2,14 @@ import Database from 'better-sqlite3';
 import { connectAsync, type MqttClient } from 'mqtt';
 import request from 'supertest';
 import { io, type Socket } from 'socket.io-client';
-import { LIVE_EVENTS, LIVE_NAMESPACE, telemetryTopic, type Reading } from '@stillwell/shared/telemetry';
+import {
+  LIVE_EVENTS,
+  LIVE_NAMESPACE,
+  telemetryTopic,
+  type Reading,
+} from '@stillwell/shared/telemetry';
 import { IngestionService } from '../src/telemetry/ingestion.service';
+import { ACCESS_TEST_ENV, signInAs } from './support/auth';
 import { startTestBroker, type TestBroker } from './support/broker';
 import { eventually, startTestGateway, type TestGateway } from './support/gateway';
 
@@ -14,6 +20,8 @@ describe('telemetry path: MQTT -> validation -> SQLite -> socket.io', () => {
   let gateway: TestGateway;
   let device: MqttClient;
   let socket: Socket;
+  // every route and the socket need a signed-in user now: the operator on shift
+  let api: ReturnType<typeof request.agent>;
   const pushed: Reading[] = [];
   // measurement times a few minutes in the past, as from a device in the field
   const now = Date.now() - 2 * 60_000;
@@ -34,12 +42,17 @@ describe('telemetry path: MQTT -> validation -> SQLite -> socket.io', () => {
 
   beforeAll(async () => {
     broker = await startTestBroker();
-    gateway = await startTestGateway({ MQTT_URL: broker.url, DEMO_MODE: 'true' });
+    gateway = await startTestGateway({ ...ACCESS_TEST_ENV, MQTT_URL: broker.url });
+    const operator = await signInAs(gateway, 'operator');
+    api = request.agent(gateway.url).set('Authorization', `Bearer ${operator.token}`);
     await eventually(async () => {
       const res = await request(gateway.url).get('/api/health');
       expect(res.body.info?.broker?.status).toBe('up');
     });
-    socket = io(`${gateway.url}${LIVE_NAMESPACE}`, { transports: ['websocket'] });
+    socket = io(`${gateway.url}${LIVE_NAMESPACE}`, {
+      transports: ['websocket'],
+      auth: { token: operator.token },
+    });
     socket.on(LIVE_EVENTS.readings, (batch: Reading[]) => pushed.push(...batch));
     const ack = await socket.timeout(5000).emitWithAck(LIVE_EVENTS.subscribe, { reservoirId: RES });
     expect(ack).toEqual({ ok: true });
@@ -56,7 +69,9 @@ describe('telemetry path: MQTT -> validation -> SQLite -> socket.io', () => {
   it('stores good readings, quarantines bad ones with reasons, records gaps and pushes live', async () => {
     // good: seq 0, 1, 2, then 5 (3 and 4 missing), a repeat of 2, and a reading in feet
     for (const seq of [0, 1, 2]) {
-      await publish(msg({ seq, time: new Date(now + seq * 30_000).toISOString(), value: 204.5 + seq / 100 }));
+      await publish(
+        msg({ seq, time: new Date(now + seq * 30_000).toISOString(), value: 204.5 + seq / 100 }),
+      );
     }
     await publish(msg({ seq: 5, time: new Date(now + 150_000).toISOString(), value: 204.6 }));
     await publish(msg({ seq: 2, time: new Date(now + 60_000).toISOString(), value: 204.52 }));
@@ -75,7 +90,7 @@ describe('telemetry path: MQTT -> validation -> SQLite -> socket.io', () => {
     await publish(msg({ seq: 10 }), 'pool-radar', 'no-such-lake');
 
     await eventually(async () => {
-      const res = await request(gateway.url).get('/api/telemetry/counters').expect(200);
+      const res = await api.get('/api/telemetry/counters').expect(200);
       expect(res.body.received).toBe(14);
       expect(res.body.stored).toBe(5);
       expect(res.body.repeats).toBe(1);
@@ -135,36 +150,39 @@ describe('telemetry path: MQTT -> validation -> SQLite -> socket.io', () => {
   });
 
   it('serves a channel series, the status, the reservoir and the quarantine over REST', async () => {
-    const series = await request(gateway.url)
+    const series = await api
       .get(`/api/reservoirs/${RES}/channels/pool.radar/readings`)
-      .query({ from: new Date(now - 1000).toISOString(), to: new Date(now + 200_000).toISOString() })
+      .query({
+        from: new Date(now - 1000).toISOString(),
+        to: new Date(now + 200_000).toISOString(),
+      })
       .expect(200);
     expect(series.body.t).toEqual([0, 30_000, 60_000, 150_000].map((d) => now + d));
     expect(series.body.v[3]).toBeCloseTo(204.6, 9);
     expect(series.body.unit).toBe('m');
 
-    const status = await request(gateway.url).get(`/api/reservoirs/${RES}/status`).expect(200);
+    const status = await api.get(`/api/reservoirs/${RES}/status`).expect(200);
     expect(status.body.pool.source).toBe('pool.radar');
     expect(status.body.pool.elevation).toBeCloseTo(204.6, 9);
     expect(status.body.pool.freeboard).toBeCloseTo(212 - 204.6, 9);
 
-    const def = await request(gateway.url).get(`/api/reservoirs/${RES}`).expect(200);
+    const def = await api.get(`/api/reservoirs/${RES}`).expect(200);
     expect(def.body.definition.damName).toBe('Orrin Gap Dam');
 
-    const q = await request(gateway.url).get('/api/telemetry/quarantine').query({ limit: 3 }).expect(200);
+    const q = await api.get('/api/telemetry/quarantine').query({ limit: 3 }).expect(200);
     expect(q.body).toHaveLength(3);
     expect(q.body[0].reason).toBe('unknown-reservoir');
   });
 
   it('answers bad queries with a 400 that names the field, and unknown things with a 404', async () => {
-    const bad = await request(gateway.url)
+    const bad = await api
       .get(`/api/reservoirs/${RES}/channels/pool.radar/readings`)
       .query({ from: 'last tuesday' })
       .expect(400);
     expect(JSON.stringify(bad.body.message)).toMatch(/from/);
-    await request(gateway.url).get(`/api/reservoirs/${RES}/channels/nope/readings`).expect(404);
-    await request(gateway.url).get('/api/reservoirs/nowhere').expect(404);
-    const extra = await request(gateway.url)
+    await api.get(`/api/reservoirs/${RES}/channels/nope/readings`).expect(404);
+    await api.get('/api/reservoirs/nowhere').expect(404);
+    const extra = await api
       .get(`/api/reservoirs/${RES}/channels/pool.radar/readings`)
       .query({ sneaky: 1 })
       .expect(400);
@@ -172,14 +190,16 @@ describe('telemetry path: MQTT -> validation -> SQLite -> socket.io', () => {
   });
 
   it('refuses a socket subscription to an unknown reservoir', async () => {
-    const ack = await socket.timeout(5000).emitWithAck(LIVE_EVENTS.subscribe, { reservoirId: 'nowhere' });
+    const ack = await socket
+      .timeout(5000)
+      .emitWithAck(LIVE_EVENTS.subscribe, { reservoirId: 'nowhere' });
     expect(ack).toEqual({ ok: false, error: 'No reservoir "nowhere"' });
     const malformed = await socket.timeout(5000).emitWithAck(LIVE_EVENTS.subscribe, { id: 1 });
     expect(malformed.ok).toBe(false);
   });
 
   it('serves the OpenAPI document', async () => {
-    const res = await request(gateway.url).get('/api/docs-json').expect(200);
+    const res = await api.get('/api/docs-json').expect(200);
     expect(Object.keys(res.body.paths)).toEqual(
       expect.arrayContaining(['/api/reservoirs', '/api/reservoirs/{id}/status', '/api/health']),
     );

@@ -1,11 +1,14 @@
 import { describe, expect, it } from 'vitest';
+import { DEMO_CREDENTIALS } from './broker/accounts.js';
 import { parseCli } from './cli-options.js';
 
 describe('parseCli', () => {
   it('defaults to a local broker and the demo storm', () => {
     expect(parseCli([], {})).toEqual({
       help: false,
-      options: { broker: true, scenario: 'demo-storm', faults: [] },
+      options: { broker: true, credentials: DEMO_CREDENTIALS, scenario: 'demo-storm', faults: [] },
+      printAccounts: false,
+      demoCredentials: true,
     });
   });
 
@@ -34,8 +37,11 @@ describe('parseCli', () => {
     );
     expect(result).toEqual({
       help: false,
+      printAccounts: false,
+      demoCredentials: true,
       options: {
         broker: false,
+        credentials: DEMO_CREDENTIALS,
         speed: 3600,
         brokerPort: 0,
         mqttUrl: 'mqtt://127.0.0.1:1999',
@@ -47,6 +53,27 @@ describe('parseCli', () => {
           { kind: 'freeze', deviceId: 'tailwater-gauge', startHour: 5, endHour: 6.5 },
         ],
       },
+    });
+  });
+
+  it('takes the broker accounts from the environment, demo values only for what is unset', () => {
+    const env = {
+      SIM_GATEWAY_USERNAME: 'gw',
+      SIM_GATEWAY_PASSWORD: 'gw-secret',
+      SIM_DEVICE_SECRET: 'dev-secret',
+    };
+    expect(parseCli(['--print-accounts'], env)).toMatchObject({
+      printAccounts: true,
+      demoCredentials: false,
+      options: {
+        credentials: {
+          gateway: { username: 'gw', password: 'gw-secret' },
+          deviceSecret: 'dev-secret',
+        },
+      },
+    });
+    expect(parseCli([], { SIM_GATEWAY_PASSWORD: 'gw-secret' })).toMatchObject({
+      demoCredentials: true,
     });
   });
 

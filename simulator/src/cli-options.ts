@@ -1,5 +1,7 @@
 import { parseArgs } from 'node:util';
+import { credentialsFromEnv } from './broker/accounts.js';
 import { parseFault } from './scenarios/faults.js';
+import { parseLeak } from './scenarios/leak.js';
 import type { SimulationOptions } from './simulation.js';
 
 export const USAGE = `stillwell-sim: local MQTT broker and the simulated Orrin Gap plant
@@ -15,10 +17,20 @@ Usage: node dist/cli.js [options]
   --dropout DEV:H1-H2      device DEV's messages are lost from hour H1 to H2 (repeatable)
   --freeze DEV:H1-H2       device DEV repeats its last value from hour H1 to H2 (repeatable)
   --seed N                 seed of the instrument noise (default 1)
+  --leak SIDE:H[:Q]        a hidden leak at the left or right abutment from hour H, growing to
+                           Q m3/s (default 8): seepage rises and water goes missing unmeasured
+  --print-accounts         print the broker accounts (for another broker's password file) and exit
   --help                   show this text
+
+Broker accounts (the broker started here admits only these, each to its own topics):
+  SIM_GATEWAY_USERNAME, SIM_GATEWAY_PASSWORD   the gateway's account (its MQTT_USERNAME/PASSWORD)
+  SIM_DEVICE_SECRET                            each device's password is derived from it
+  Unset: fixed demo values (loopback only); npm start passes random ones.
 `;
 
-export type CliResult = { help: true } | { help: false; options: SimulationOptions };
+export type CliResult =
+  | { help: true }
+  | { help: false; options: SimulationOptions; printAccounts: boolean; demoCredentials: boolean };
 
 function number(name: string, text: string, check: (n: number) => boolean): number {
   const n = Number(text);
@@ -45,6 +57,8 @@ export function parseCli(argv: readonly string[], env: NodeJS.ProcessEnv): CliRe
       dropout: { type: 'string', multiple: true },
       freeze: { type: 'string', multiple: true },
       seed: { type: 'string' },
+      leak: { type: 'string' },
+      'print-accounts': { type: 'boolean' },
       help: { type: 'boolean' },
     },
   });
@@ -64,8 +78,10 @@ export function parseCli(argv: readonly string[], env: NodeJS.ProcessEnv): CliRe
       throw new RangeError(`--mqtt-url "${mqttUrl}": expected mqtt://host:port`);
     }
   }
+  const { credentials, demo } = credentialsFromEnv(env);
   const options: SimulationOptions = {
     broker: !values['no-broker'],
+    credentials,
     scenario: values.scenario ?? 'demo-storm',
     faults: [
       ...(values.dropout ?? []).map((t) => parseFault('dropout', t)),
@@ -77,8 +93,14 @@ export function parseCli(argv: readonly string[], env: NodeJS.ProcessEnv): CliRe
   }
   if (portText !== undefined) options.brokerPort = number('broker-port', portText, isPort);
   if (mqttUrl !== undefined) options.mqttUrl = mqttUrl;
+  if (values.leak !== undefined) options.leak = parseLeak(values.leak);
   if (values.seed !== undefined) {
     options.seed = number('seed', values.seed, (n) => Number.isInteger(n) && n >= 0);
   }
-  return { help: false, options };
+  return {
+    help: false,
+    options,
+    printAccounts: values['print-accounts'] ?? false,
+    demoCredentials: demo,
+  };
 }

@@ -1,4 +1,7 @@
 #!/usr/bin/env node
+import { DEMO_RESERVOIR } from '@stillwell/shared/reservoirs';
+import { brokerAccounts } from './broker/accounts.js';
+import { ACL_RULES } from './broker/acl.js';
 import { parseCli, USAGE } from './cli-options.js';
 import { startSimulation } from './simulation.js';
 
@@ -18,8 +21,23 @@ async function main(): Promise<void> {
     process.stdout.write(USAGE);
     return;
   }
+  const credentials = parsed.options.credentials!;
+  if (parsed.printAccounts) {
+    const devices = [...new Set(DEMO_RESERVOIR.channels.map((c) => c.deviceId))];
+    for (const a of brokerAccounts(credentials, DEMO_RESERVOIR.id, devices)) {
+      const rules = ACL_RULES[a.kind];
+      console.log(
+        `${a.kind}\t${a.username}\t${a.password}\tpublish ${rules.publish.join(' ')}\tsubscribe ${rules.subscribe.join(' ') || '-'}`,
+      );
+    }
+    return;
+  }
+  if (parsed.demoCredentials) {
+    log(
+      'broker accounts: demo values (set SIM_GATEWAY_PASSWORD and SIM_DEVICE_SECRET for your own)',
+    );
+  }
   const sim = await startSimulation({ ...parsed.options, log });
-  log(`devices connected to ${sim.mqttUrl}; speed ${sim.speed}x; Ctrl-C stops`);
 
   let stopping = false;
   const shutdown = (signal: string) => {
@@ -42,6 +60,8 @@ async function main(): Promise<void> {
   };
   process.on('SIGINT', () => shutdown('SIGINT'));
   process.on('SIGTERM', () => shutdown('SIGTERM'));
+  // only once the handlers stand: a launcher may signal as soon as it reads this line
+  log(`devices connected to ${sim.mqttUrl}; speed ${sim.speed}x; Ctrl-C stops`);
 }
 
 main().catch((error: unknown) => {

@@ -1,5 +1,13 @@
 import { clockTopic, type SiteClockMessage } from '@stillwell/shared/telemetry';
 import { DEMO_RESERVOIR, type ReservoirDefinition } from '@stillwell/shared/reservoirs';
+import {
+  brokerAccounts,
+  CLOCK_CLIENT_ID,
+  clockCredentials,
+  deviceCredentials,
+  type SimulatorCredentials,
+} from './broker/accounts.js';
+import { aclPolicy } from './broker/acl.js';
 import { startBroker, type BrokerPolicy, type RunningBroker } from './broker/broker.js';
 import { DeviceFleet } from './devices/fleet.js';
 import { DeviceLink } from './devices/link.js';
@@ -8,7 +16,7 @@ import { ReservoirPlant } from './plant/reservoir-plant.js';
 import { PlantRunner } from './plant/runner.js';
 import { checkFault } from './scenarios/faults.js';
 import { findScenario } from './scenarios/index.js';
-import type { DeviceFault, Scenario } from './scenarios/scenario.js';
+import type { DeviceFault, Leak, Scenario } from './scenarios/scenario.js';
 import { describeState } from './status-line.js';
 
 export interface SimulationOptions {
@@ -20,12 +28,20 @@ export interface SimulationOptions {
   brokerPort?: number;
   brokerHost?: string;
   brokerPolicy?: BrokerPolicy;
+  /**
+   * Broker accounts: the devices and clock connect with theirs, and a broker started here lets in
+   * only these accounts, each to its own topics (broker/acl.ts). Without them a started broker is
+   * open (in-process tests); the command line always passes them.
+   */
+  credentials?: SimulatorCredentials;
   /** the broker the devices use (default mqtt://127.0.0.1:1883); a started broker replaces it */
   mqttUrl?: string;
   /** a scenario id or definition (default 'demo-storm') */
   scenario?: string | Scenario;
   /** faults added to the scenario's own */
   faults?: readonly DeviceFault[];
+  /** a hidden abutment leak, replacing the scenario's own (if any) */
+  leak?: Leak;
   seed?: number;
   reservoir?: ReservoirDefinition;
   /** plant time at the start (default: now, rounded down to the minute) */
@@ -65,7 +81,11 @@ export async function startSimulation(options: SimulationOptions = {}): Promise<
     typeof options.scenario === 'object'
       ? options.scenario
       : findScenario(options.scenario ?? 'demo-storm');
-  const scenario: Scenario = { ...base, faults: [...base.faults, ...(options.faults ?? [])] };
+  const scenario: Scenario = {
+    ...base,
+    faults: [...base.faults, ...(options.faults ?? [])],
+    leak: options.leak ?? base.leak,
+  };
   const deviceIds = new Set(reservoir.channels.map((c) => c.deviceId));
   for (const fault of scenario.faults) {
     checkFault(fault);
@@ -85,10 +105,17 @@ export async function startSimulation(options: SimulationOptions = {}): Promise<
   if (options.broker ?? true) {
     // Without an explicit port the broker takes the one the devices were told to use.
     const urlPort = Number(new URL(mqttUrl).port || 1883);
+    const { credentials } = options;
+    const policy =
+      options.brokerPolicy ??
+      (credentials
+        ? aclPolicy(brokerAccounts(credentials, reservoir.id, [...deviceIds]), log)
+        : undefined);
+    if (!policy) log('broker is open: no credentials given (any client may publish anything)');
     broker = await startBroker({
       port: options.brokerPort ?? urlPort,
       host: options.brokerHost,
-      policy: options.brokerPolicy,
+      policy,
     });
     mqttUrl = `mqtt://${broker.host}:${broker.port}`;
     log(`broker listening on ${mqttUrl}`);
@@ -105,8 +132,15 @@ export async function startSimulation(options: SimulationOptions = {}): Promise<
       faults: scenario.faults,
       startMs,
       log,
+      credentialsFor: options.credentials
+        ? (id) => deviceCredentials(options.credentials!, reservoir.id, id)
+        : undefined,
     });
-    clockLink = await DeviceLink.connect(mqttUrl, 'stillwell-sim-clock');
+    clockLink = await DeviceLink.connect(
+      mqttUrl,
+      CLOCK_CLIENT_ID,
+      options.credentials ? clockCredentials(options.credentials, reservoir.id) : undefined,
+    );
   } catch (error) {
     await fleet?.close();
     await broker?.close();
@@ -149,6 +183,12 @@ export async function startSimulation(options: SimulationOptions = {}): Promise<
     );
   }
   log(`${scenario.name}: ${describeState(plant, 0)}`);
+  if (scenario.leak) {
+    const { abutment, startHour, peakFlow } = scenario.leak;
+    log(
+      `drill: a hidden leak opens at the ${abutment} abutment at hour ${startHour}, growing to about ${peakFlow} m3/s`,
+    );
+  }
 
   let stopping: Promise<void> | undefined;
   return {

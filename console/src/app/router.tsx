@@ -1,14 +1,20 @@
 import { useState } from 'react';
 import { createBrowserRouter, Navigate, RouterProvider, type RouteObject } from 'react-router-dom';
 import { paths } from '../config/paths';
+import { AlarmRatesRoute, AlarmsRoute } from './routes/alarms';
+import { DamSafetyRoute } from './routes/dam-safety';
 import { HomeRoute } from './routes/home';
+import { LogbookRoute } from './routes/logbook';
 import { NotFoundRoute } from './routes/not-found';
+import { DownstreamRoute, MyReleasesRoute, NoticesRoute, OutboxRoute } from './routes/notices';
+import { OrdersRoute } from './routes/orders';
 import { OverviewRoute } from './routes/overview';
 import { ReservoirLayout } from './routes/reservoir-layout';
 import { RouteError } from './routes/route-error';
 
 export const routes: RouteObject[] = [
   { path: paths.home.path, element: <HomeRoute />, errorElement: <RouteError /> },
+  { path: paths.myReleases.path, element: <MyReleasesRoute />, errorElement: <RouteError /> },
   {
     path: paths.reservoir.path,
     element: <ReservoirLayout />,
@@ -16,6 +22,14 @@ export const routes: RouteObject[] = [
     children: [
       { index: true, element: <Navigate to={paths.overview.path} replace /> },
       { path: paths.overview.path, element: <OverviewRoute /> },
+      { path: paths.alarms.path, element: <AlarmsRoute /> },
+      { path: paths.alarmRates.path, element: <AlarmRatesRoute /> },
+      { path: paths.damSafety.path, element: <DamSafetyRoute /> },
+      { path: paths.orders.path, element: <OrdersRoute /> },
+      { path: paths.logbook.path, element: <LogbookRoute /> },
+      { path: paths.notices.path, element: <NoticesRoute /> },
+      { path: paths.downstream.path, element: <DownstreamRoute /> },
+      { path: paths.outbox.path, element: <OutboxRoute /> },
     ],
   },
   { path: '*', element: <NotFoundRoute /> },

@@ -9,6 +9,12 @@ export class ApiError extends Error {
     readonly status: number,
     message: string,
     readonly path: string,
+    /** each problem the gateway listed (a 400 names the field and row in each) */
+    readonly details: readonly string[] = [],
+    /** the machine-readable reason, where the gateway gives one (step-up-required, own-order...) */
+    readonly code?: string,
+    /** the whole error body, for refusals that carry more (an order's interlock report) */
+    readonly body?: unknown,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -27,18 +33,21 @@ function buildUrl(path: string, query?: Record<string, string>): string {
 
 async function toApiError(response: Response, path: string): Promise<ApiError> {
   let message = `${response.status} ${response.statusText}`.trim();
+  let details: string[] = [];
+  let code: string | undefined;
+  let raw: unknown;
   try {
-    const body = apiErrorSchema.safeParse(await response.json());
+    raw = await response.json();
+    const body = apiErrorSchema.safeParse(raw);
     if (body.success) {
-      const text = Array.isArray(body.data.message)
-        ? body.data.message.join('; ')
-        : body.data.message;
-      message = text || message;
+      details = Array.isArray(body.data.message) ? body.data.message : [body.data.message];
+      message = details.join('; ') || message;
+      code = body.data.code;
     }
   } catch {
     // Not JSON (a proxy's error page): the status line is all there is.
   }
-  return new ApiError(response.status, message, path);
+  return new ApiError(response.status, message, path, details, code, raw);
 }
 
 /**
@@ -73,6 +82,111 @@ export async function apiGet<S extends z.ZodType>(
     );
   }
   return parsed.data;
+}
+
+/**
+ * POST a JSON body and check the answer against its schema; the same error handling as apiGet.
+ */
+export async function apiPost<S extends z.ZodType>(
+  path: string,
+  body: unknown,
+  schema: S,
+  options: RequestOptions = {},
+): Promise<z.output<S>> {
+  let response: Response;
+  try {
+    response = await fetch(buildUrl(path, options.query), {
+      method: 'POST',
+      headers: new Headers({ Accept: 'application/json', 'Content-Type': 'application/json' }),
+      body: JSON.stringify(body),
+      signal: options.signal,
+      credentials: 'same-origin',
+    });
+  } catch (error) {
+    if (options.signal?.aborted) throw error;
+    throw new ApiError(0, 'The gateway cannot be reached', path);
+  }
+  if (!response.ok) throw await toApiError(response, path);
+  const parsed = schema.safeParse(await response.json());
+  if (!parsed.success) {
+    throw new ApiError(
+      response.status,
+      `Unexpected answer from the gateway: ${describeIssues(parsed.error)}`,
+      path,
+    );
+  }
+  return parsed.data;
+}
+
+async function send(path: string, init: RequestInit, options: RequestOptions): Promise<Response> {
+  let response: Response;
+  try {
+    response = await fetch(buildUrl(path, options.query), {
+      ...init,
+      signal: options.signal,
+      credentials: 'same-origin',
+    });
+  } catch (error) {
+    if (options.signal?.aborted) throw error;
+    throw new ApiError(0, 'The gateway cannot be reached', path);
+  }
+  if (!response.ok) throw await toApiError(response, path);
+  return response;
+}
+
+async function checked<S extends z.ZodType>(
+  response: Response,
+  schema: S,
+  path: string,
+): Promise<z.output<S>> {
+  const parsed = schema.safeParse(await response.json());
+  if (!parsed.success) {
+    throw new ApiError(
+      response.status,
+      `Unexpected answer from the gateway: ${describeIssues(parsed.error)}`,
+      path,
+    );
+  }
+  return parsed.data;
+}
+
+/** PUT a JSON body; the same error handling as apiGet. */
+export async function apiPut<S extends z.ZodType>(
+  path: string,
+  body: unknown,
+  schema: S,
+  options: RequestOptions = {},
+): Promise<z.output<S>> {
+  const headers = new Headers({ Accept: 'application/json', 'Content-Type': 'application/json' });
+  const response = await send(
+    path,
+    { method: 'PUT', headers, body: JSON.stringify(body) },
+    options,
+  );
+  return checked(response, schema, path);
+}
+
+/** POST a multipart form (files with fields); the browser sets the boundary. */
+export async function apiPostForm<S extends z.ZodType>(
+  path: string,
+  form: FormData,
+  schema: S,
+  options: RequestOptions = {},
+): Promise<z.output<S>> {
+  const headers = new Headers({ Accept: 'application/json' });
+  const response = await send(path, { method: 'POST', headers, body: form }, options);
+  return checked(response, schema, path);
+}
+
+/** GET a file (an export, an attachment) as a Blob with the name the gateway gave it. */
+export async function apiDownload(
+  path: string,
+  options: RequestOptions = {},
+): Promise<{ blob: Blob; filename: string | null }> {
+  const response = await send(path, { method: 'GET' }, options);
+  const disposition = response.headers.get('Content-Disposition') ?? '';
+  const filename = /filename="([^"]+)"/.exec(disposition)?.[1] ?? null;
+  return { blob: await response.blob(), filename };
 }
 
 /** A short, operator-facing sentence for any error a query can end in. */

@@ -1,4 +1,7 @@
 import { io, type Socket } from 'socket.io-client';
+import { FORECAST_LIVE_EVENTS } from '@stillwell/shared/forecasts';
+import { LOGBOOK_LIVE_EVENTS } from '@stillwell/shared/logbook';
+import { ORDER_LIVE_EVENTS } from '@stillwell/shared/orders';
 import {
   LIVE_EVENTS,
   LIVE_NAMESPACE,
@@ -14,6 +17,12 @@ export interface LiveSocketEvents {
   connect_error: (error: Error) => void;
   readings: (payload: unknown) => void;
   status: (payload: unknown) => void;
+  forecast: (payload: unknown) => void;
+  order: (payload: unknown) => void;
+  emergency: (payload: unknown) => void;
+  automation: (payload: unknown) => void;
+  'order-alarm': (payload: unknown) => void;
+  'logbook-entry': (payload: unknown) => void;
 }
 
 /**
@@ -30,16 +39,43 @@ export interface LiveSocket {
   off<E extends keyof LiveSocketEvents>(event: E, listener: LiveSocketEvents[E]): void;
   subscribe(request: SubscribeRequest, onAck: (ack: SubscribeAck) => void): void;
   unsubscribe(request: SubscribeRequest): void;
+  /** the forecast room: same request and ack, its own permission (forecast.read) */
+  subscribeForecast(request: SubscribeRequest, onAck: (ack: SubscribeAck) => void): void;
+  unsubscribeForecast(request: SubscribeRequest): void;
+  /** the orders room (orders, emergency, automatic rules, order alarms): orders.read */
+  subscribeOrders(request: SubscribeRequest, onAck: (ack: SubscribeAck) => void): void;
+  unsubscribeOrders(request: SubscribeRequest): void;
+  /** the logbook room (new entries after their commit): logbook.read */
+  followLogbook(onAck: (ack: SubscribeAck) => void): void;
+  unfollowLogbook(): void;
 }
 
 interface ServerToClient {
   [LIVE_EVENTS.readings]: (payload: unknown) => void;
   [LIVE_EVENTS.status]: (payload: unknown) => void;
+  [FORECAST_LIVE_EVENTS.forecast]: (payload: unknown) => void;
+  [ORDER_LIVE_EVENTS.order]: (payload: unknown) => void;
+  [ORDER_LIVE_EVENTS.emergency]: (payload: unknown) => void;
+  [ORDER_LIVE_EVENTS.automation]: (payload: unknown) => void;
+  [ORDER_LIVE_EVENTS.alarm]: (payload: unknown) => void;
+  [LOGBOOK_LIVE_EVENTS.entry]: (payload: unknown) => void;
 }
 
 interface ClientToServer {
   [LIVE_EVENTS.subscribe]: (request: SubscribeRequest, ack: (ack: SubscribeAck) => void) => void;
   [LIVE_EVENTS.unsubscribe]: (request: SubscribeRequest) => void;
+  [FORECAST_LIVE_EVENTS.subscribe]: (
+    request: SubscribeRequest,
+    ack: (ack: SubscribeAck) => void,
+  ) => void;
+  [FORECAST_LIVE_EVENTS.unsubscribe]: (request: SubscribeRequest) => void;
+  [ORDER_LIVE_EVENTS.subscribe]: (
+    request: SubscribeRequest,
+    ack: (ack: SubscribeAck) => void,
+  ) => void;
+  [ORDER_LIVE_EVENTS.unsubscribe]: (request: SubscribeRequest) => void;
+  [LOGBOOK_LIVE_EVENTS.follow]: (ack: (ack: SubscribeAck) => void) => void;
+  [LOGBOOK_LIVE_EVENTS.unfollow]: () => void;
 }
 
 type Listener = (...args: never[]) => void;
@@ -72,5 +108,13 @@ export function createLiveSocket(): LiveSocket {
     off: (event, listener) => raw.off(event, listener),
     subscribe: (request, onAck) => void socket.emit(LIVE_EVENTS.subscribe, request, onAck),
     unsubscribe: (request) => void socket.emit(LIVE_EVENTS.unsubscribe, request),
+    subscribeForecast: (request, onAck) =>
+      void socket.emit(FORECAST_LIVE_EVENTS.subscribe, request, onAck),
+    unsubscribeForecast: (request) => void socket.emit(FORECAST_LIVE_EVENTS.unsubscribe, request),
+    subscribeOrders: (request, onAck) =>
+      void socket.emit(ORDER_LIVE_EVENTS.subscribe, request, onAck),
+    unsubscribeOrders: (request) => void socket.emit(ORDER_LIVE_EVENTS.unsubscribe, request),
+    followLogbook: (onAck) => void socket.emit(LOGBOOK_LIVE_EVENTS.follow, onAck),
+    unfollowLogbook: () => void socket.emit(LOGBOOK_LIVE_EVENTS.unfollow),
   };
 }

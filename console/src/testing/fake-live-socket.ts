@@ -9,12 +9,27 @@ export class FakeLiveSocket implements LiveSocket {
   active = true;
   readonly subscriptions: { request: SubscribeRequest; ack: (ack: SubscribeAck) => void }[] = [];
   readonly unsubscriptions: SubscribeRequest[] = [];
+  readonly forecastSubscriptions: {
+    request: SubscribeRequest;
+    ack: (ack: SubscribeAck) => void;
+  }[] = [];
+  readonly ordersSubscriptions: {
+    request: SubscribeRequest;
+    ack: (ack: SubscribeAck) => void;
+  }[] = [];
+  readonly logbookFollows: Array<(ack: SubscribeAck) => void> = [];
   private readonly listeners: Listeners = {
     connect: new Set(),
     disconnect: new Set(),
     connect_error: new Set(),
     readings: new Set(),
     status: new Set(),
+    forecast: new Set(),
+    order: new Set(),
+    emergency: new Set(),
+    automation: new Set(),
+    'order-alarm': new Set(),
+    'logbook-entry': new Set(),
   };
 
   connect(): void {
@@ -41,6 +56,28 @@ export class FakeLiveSocket implements LiveSocket {
     this.unsubscriptions.push(request);
   }
 
+  subscribeForecast(request: SubscribeRequest, ack: (ack: SubscribeAck) => void): void {
+    this.forecastSubscriptions.push({ request, ack });
+  }
+
+  unsubscribeForecast(request: SubscribeRequest): void {
+    this.unsubscriptions.push(request);
+  }
+
+  subscribeOrders(request: SubscribeRequest, ack: (ack: SubscribeAck) => void): void {
+    this.ordersSubscriptions.push({ request, ack });
+  }
+
+  unsubscribeOrders(request: SubscribeRequest): void {
+    this.unsubscriptions.push(request);
+  }
+
+  followLogbook(ack: (ack: SubscribeAck) => void): void {
+    this.logbookFollows.push(ack);
+  }
+
+  unfollowLogbook(): void {}
+
   serverConnects(): void {
     this.connected = true;
     this.active = true;
@@ -52,7 +89,10 @@ export class FakeLiveSocket implements LiveSocket {
     this.listeners.disconnect.forEach((listener) => listener(reason));
   }
 
-  push(event: 'readings' | 'status', payload: unknown): void {
+  push(
+    event: Exclude<keyof LiveSocketEvents, 'connect' | 'disconnect' | 'connect_error'>,
+    payload: unknown,
+  ): void {
     this.listeners[event].forEach((listener) => listener(payload));
   }
 

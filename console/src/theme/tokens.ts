@@ -23,6 +23,9 @@ export const dataInk = {
   waterSurface: '#b5bfc9',
   reference: '#6f7881',
   crest: '#a7b0b9',
+  /** forecast band: its p10/p90 edges and the shade between them (the spread, not a colour alarm) */
+  band: '#7f8c99',
+  bandFill: 'rgba(157, 179, 199, 0.2)',
 } as const;
 
 /** Kept for abnormal states only. */

@@ -1,6 +1,8 @@
 import { resolve } from 'node:path';
 import { z } from 'zod';
 import { accessEnv } from '../auth/access-env';
+import { mailEnv } from '../mail/mail-env';
+import { noticesEnv } from '../notices/notices-env';
 
 const bool = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])
@@ -26,6 +28,8 @@ export const envSchema = z.object({
   /** how often the overview status is pushed to consoles, ms of wall time */
   STATUS_PUSH_MS: z.coerce.number().int().min(100).default(1000),
   ...accessEnv,
+  ...mailEnv,
+  ...noticesEnv,
 });
 export type Env = z.infer<typeof envSchema>;
 

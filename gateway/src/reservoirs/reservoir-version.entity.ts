@@ -18,4 +18,12 @@ export class ReservoirVersion {
 
   @Column('text', { name: 'created_by' })
   createdBy: string;
+
+  /** what the version changed: seed, storage-table, structures (null on rows older than the column) */
+  @Column('text', { nullable: true })
+  change: string | null;
+
+  /** the uploader's note */
+  @Column('text', { nullable: true })
+  note: string | null;
 }

@@ -1,7 +1,14 @@
-import { Injectable, Logger, NotFoundException, OnApplicationBootstrap } from '@nestjs/common';
+import {
+  ConflictException,
+  Injectable,
+  Logger,
+  NotFoundException,
+  OnApplicationBootstrap,
+} from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectRepository } from '@nestjs/typeorm';
-import { Repository } from 'typeorm';
+import { Subject } from 'rxjs';
+import { Repository, type EntityManager } from 'typeorm';
 import {
   DEMO_RESERVOIR,
   reservoirDefinitionSchema,
@@ -14,6 +21,35 @@ import { WriteQueueService } from '../database/write-queue.service';
 import { Reservoir } from './reservoir.entity';
 import { ReservoirVersion } from './reservoir-version.entity';
 
+/** What a new version is, and what to write with it in the same transaction (the logbook). */
+export interface VersionMeta {
+  change: string;
+  note?: string | null;
+  /** the version the change was made on: refused (409) if another change came first */
+  baseVersion?: number;
+  /** runs inside the version's transaction; a failure rolls the version back */
+  alsoWrite?: (tx: EntityManager, version: number, previous: number | null) => Promise<unknown>;
+}
+
+/** A version of a definition as the version list shows it (the definition itself apart). */
+export interface VersionSummary {
+  version: number;
+  createdAt: string;
+  createdBy: string;
+  change: string | null;
+  note: string | null;
+  current: boolean;
+  storageRows: number;
+  structures: number;
+  thresholds: number;
+}
+
+export interface DefinitionChanged {
+  reservoirId: string;
+  version: number;
+  change: string;
+}
+
 export interface LoadedReservoir {
   version: number;
   definition: ReservoirDefinition;
@@ -25,6 +61,8 @@ export interface LoadedReservoir {
 export class ReservoirsService implements OnApplicationBootstrap {
   private readonly logger = new Logger(ReservoirsService.name);
   private readonly loaded = new Map<string, LoadedReservoir>();
+  /** every new version after it is committed (forecasts rerun on it) */
+  readonly changed$ = new Subject<DefinitionChanged>();
 
   constructor(
     @InjectRepository(Reservoir) private readonly reservoirs: Repository<Reservoir>,
@@ -35,18 +73,30 @@ export class ReservoirsService implements OnApplicationBootstrap {
 
   async onApplicationBootstrap(): Promise<void> {
     if (this.config.get('DEMO_MODE', { infer: true }) && (await this.reservoirs.count()) === 0) {
-      await this.addVersion(DEMO_RESERVOIR, 'seed');
+      await this.addVersion(DEMO_RESERVOIR, 'seed', { change: 'seed' });
       this.logger.log(`Seeded the demo reservoir "${DEMO_RESERVOIR.name}"`);
     }
     await this.reload();
   }
 
-  /** Writes a new version of a definition (the first one creates the reservoir). */
-  async addVersion(definition: ReservoirDefinition, createdBy: string): Promise<LoadedReservoir> {
+  /**
+   * Writes a new version of a definition (the first one creates the reservoir). Versions are
+   * never overwritten: every change is a new row, and the reservoir points at the latest.
+   */
+  async addVersion(
+    definition: ReservoirDefinition,
+    createdBy: string,
+    meta: VersionMeta = { change: 'definition' },
+  ): Promise<LoadedReservoir> {
     const checked = reservoirDefinitionSchema.parse(definition);
     const version = await this.writes.run(() =>
       this.reservoirs.manager.transaction(async (tx) => {
         const existing = await tx.findOneBy(Reservoir, { id: checked.id });
+        if (meta.baseVersion !== undefined && existing?.currentVersion !== meta.baseVersion) {
+          throw new ConflictException(
+            `the definition changed meanwhile (now version ${existing?.currentVersion ?? 'none'}, the change was made on ${meta.baseVersion}): load it again and repeat the change`,
+          );
+        }
         const next = (existing?.currentVersion ?? 0) + 1;
         await tx.insert(ReservoirVersion, {
           reservoirId: checked.id,
@@ -54,7 +104,10 @@ export class ReservoirsService implements OnApplicationBootstrap {
           definition: JSON.stringify(checked),
           createdAt: Date.now(),
           createdBy,
+          change: meta.change,
+          note: meta.note ?? null,
         });
+        await meta.alsoWrite?.(tx, next, existing?.currentVersion ?? null);
         await tx.save(Reservoir, {
           id: checked.id,
           name: checked.name,
@@ -65,7 +118,43 @@ export class ReservoirsService implements OnApplicationBootstrap {
         return next;
       }),
     );
-    return this.remember(checked, version);
+    const loaded = this.remember(checked, version);
+    this.changed$.next({ reservoirId: checked.id, version, change: meta.change });
+    return loaded;
+  }
+
+  /** Every version of a reservoir's definition, newest first. */
+  async listVersions(id: string): Promise<VersionSummary[]> {
+    const current = this.get(id).version;
+    const rows = await this.versions.find({
+      where: { reservoirId: id },
+      order: { version: 'DESC' },
+    });
+    return rows.map((r) => {
+      const d = JSON.parse(r.definition) as ReservoirDefinition;
+      return {
+        version: r.version,
+        createdAt: new Date(r.createdAt).toISOString(),
+        createdBy: r.createdBy,
+        change: r.change,
+        note: r.note,
+        current: r.version === current,
+        storageRows: d.storageTable.length,
+        structures: d.structures.length,
+        thresholds: d.thresholds.length,
+      };
+    });
+  }
+
+  /** One version's definition, as it was written. */
+  async getVersion(
+    id: string,
+    version: number,
+  ): Promise<{ version: number; definition: ReservoirDefinition }> {
+    this.get(id);
+    const row = await this.versions.findOneBy({ reservoirId: id, version });
+    if (!row) throw new NotFoundException(`Reservoir "${id}" has no version ${version}`);
+    return { version, definition: reservoirDefinitionSchema.parse(JSON.parse(row.definition)) };
   }
 
   list(): ReservoirSummary[] {

@@ -16,6 +16,7 @@ import {
   subscribeRequestSchema,
   type SubscribeAck,
 } from '@stillwell/shared/telemetry';
+import { LiveSocketAuth } from '../auth/live-socket-auth';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { IngestionService } from './ingestion.service';
 import { StatusService } from './status.service';
@@ -35,9 +36,12 @@ export class LiveGateway implements OnGatewayInit, OnModuleDestroy {
     private readonly reservoirs: ReservoirsService,
     private readonly ingestion: IngestionService,
     private readonly status: StatusService,
+    private readonly access: LiveSocketAuth,
   ) {}
 
   afterInit(): void {
+    // guards do not run on socket.io: the token is checked in the handshake, rooms by the matrix
+    this.access.protect(this.server);
     this.subscriptions.push(
       this.ingestion.stored$.subscribe(({ reservoirId, readings }) =>
         this.server.to(room(reservoirId)).emit(LIVE_EVENTS.readings, readings),
@@ -60,6 +64,8 @@ export class LiveGateway implements OnGatewayInit, OnModuleDestroy {
     const parsed = subscribeRequestSchema.safeParse(body);
     if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
     const { reservoirId } = parsed.data;
+    const refusal = await this.access.refusal(socket, 'telemetry.read');
+    if (refusal) return { ok: false, error: refusal };
     if (!this.reservoirs.find(reservoirId))
       return { ok: false, error: `No reservoir "${reservoirId}"` };
     await socket.join(room(reservoirId));

@@ -1,6 +1,7 @@
 import { Controller, Get, Param, Query } from '@nestjs/common';
 import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { ReadingSeries, ReservoirStatus } from '@stillwell/shared/telemetry';
+import { Permission } from '../common/decorators/permission.decorator';
 import { QuarantineQueryDto, ReadingsQueryDto } from './dto/readings-query.dto';
 import { IngestionService, type IngestionCounters } from './ingestion.service';
 import { QuarantinedMessage } from './quarantined-message.entity';
@@ -18,6 +19,7 @@ export class TelemetryController {
   ) {}
 
   @Get('reservoirs/:id/status')
+  @Permission('telemetry.read')
   @ApiOkResponse({
     description: 'Latest value of every channel, pool, freeboard, rate of rise, site clock',
   })
@@ -26,6 +28,7 @@ export class TelemetryController {
   }
 
   @Get('reservoirs/:id/channels/:channel/readings')
+  @Permission('telemetry.read')
   @ApiOkResponse({ description: 'A channel readings over a time range (columnar, SI units)' })
   getReadings(
     @Param('id') id: string,
@@ -36,12 +39,14 @@ export class TelemetryController {
   }
 
   @Get('reservoirs/:id/gaps')
+  @Permission('telemetry.read')
   @ApiOkResponse({ description: 'Sequence gaps detected per device, most recent first' })
   getGaps(@Param('id') id: string): Promise<SequenceGap[]> {
     return this.readings.gapsOf(id);
   }
 
   @Get('telemetry/quarantine')
+  @Permission('telemetry.read')
   @ApiOkResponse({
     description: 'Most recent quarantined messages with their reasons and raw payloads',
   })
@@ -50,6 +55,7 @@ export class TelemetryController {
   }
 
   @Get('telemetry/counters')
+  @Permission('telemetry.read')
   @ApiOkResponse({ description: 'Ingestion counters since the gateway started' })
   getCounters(): IngestionCounters {
     return this.ingestion.counters;

@@ -1,8 +1,8 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { INestApplication } from '@nestjs/common';
-import { Test } from '@nestjs/testing';
+import type { INestApplication, Type } from '@nestjs/common';
+import { Test, type TestingModuleBuilder } from '@nestjs/testing';
 import { AppModule } from '../../src/app.module';
 import { setupApp } from '../../src/setup-app';
 
@@ -14,7 +14,14 @@ export interface TestGateway {
 }
 
 /** The real gateway on a temporary SQLite file, configured only through its environment variables. */
-export async function startTestGateway(env: Record<string, string>): Promise<TestGateway> {
+export async function startTestGateway(
+  env: Record<string, string>,
+  options: {
+    imports?: Type[];
+    /** e.g. replace an injectable seam (b.overrideProvider(TOKEN).useClass(...)) */
+    override?: (builder: TestingModuleBuilder) => TestingModuleBuilder;
+  } = {},
+): Promise<TestGateway> {
   const dir = mkdtempSync(join(tmpdir(), 'stillwell-gw-'));
   const databasePath = join(dir, 'test.sqlite');
   Object.assign(process.env, {
@@ -25,7 +32,10 @@ export async function startTestGateway(env: Record<string, string>): Promise<Tes
     MQTT_CLIENT_ID: `stillwell-test-${process.pid}-${Date.now()}`,
     ...env,
   });
-  const moduleRef = await Test.createTestingModule({ imports: [AppModule.register()] }).compile();
+  const builder = Test.createTestingModule({
+    imports: [AppModule.register(), ...(options.imports ?? [])],
+  });
+  const moduleRef = await (options.override?.(builder) ?? builder).compile();
   const app = moduleRef.createNestApplication({ logger: ['error', 'warn'] });
   setupApp(app);
   await app.listen(0, '127.0.0.1');
@@ -41,7 +51,10 @@ export async function startTestGateway(env: Record<string, string>): Promise<Tes
 }
 
 /** Polls until the check passes or the time is up (the test then fails with the check's own error). */
-export async function eventually(check: () => void | Promise<void>, timeoutMs = 10_000): Promise<void> {
+export async function eventually(
+  check: () => void | Promise<void>,
+  timeoutMs = 10_000,
+): Promise<void> {
   const start = Date.now();
   for (;;) {
     try {

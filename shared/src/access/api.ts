@@ -18,7 +18,10 @@ export const usernameSchema = z
 export const displayNameSchema = z.string().trim().min(1).max(100);
 export const totpCodeSchema = z.string().regex(/^\d{6}$/, 'six digits');
 /** A password as typed at sign-in: the rules apply when it is set, not here. */
-const typedPasswordSchema = z.string().min(1).max(PASSWORD_RULES.maxLength * 4);
+const typedPasswordSchema = z
+  .string()
+  .min(1)
+  .max(PASSWORD_RULES.maxLength * 4);
 const isoTime = z.string().datetime();
 
 export const signInRequestSchema = z.strictObject({
@@ -66,7 +69,10 @@ export type StepUpResponse = z.infer<typeof stepUpResponseSchema>;
 
 export const changePasswordRequestSchema = z.strictObject({
   currentPassword: typedPasswordSchema,
-  newPassword: z.string().min(1).max(PASSWORD_RULES.maxLength * 4),
+  newPassword: z
+    .string()
+    .min(1)
+    .max(PASSWORD_RULES.maxLength * 4),
 });
 export type ChangePasswordRequest = z.infer<typeof changePasswordRequestSchema>;
 

@@ -9,7 +9,9 @@ describe('password rules (NIST SP 800-63B 5.1.1.2)', () => {
   it('asks 8 characters of everyone and 15 of an administrator', () => {
     expect(checkPassword('tidal-ox')).toEqual([]);
     expect(checkPassword('tidal-o')).toEqual(['too-short']);
-    expect(checkPassword('fourteen-chars', { roles: ['operator', 'admin'] })).toEqual(['too-short']);
+    expect(checkPassword('fourteen-chars', { roles: ['operator', 'admin'] })).toEqual([
+      'too-short',
+    ]);
     expect(checkPassword('fifteen-chars!!', { roles: ['admin'] })).toEqual([]);
     expect(PASSWORD_RULES).toMatchObject({ minLength: 8, adminMinLength: 15, maxLength: 128 });
   });
@@ -34,7 +36,9 @@ describe('password rules (NIST SP 800-63B 5.1.1.2)', () => {
     expect(checkPassword('aaaaaaaaaa')).toEqual(['repetitive']);
     expect(checkPassword('123456789')).toEqual(['repetitive']);
     expect(checkPassword('hgfedcba')).toEqual(['repetitive']);
-    expect(checkPassword('mara.quill-2031', { username: 'mara.quill' })).toEqual(['contains-username']);
+    expect(checkPassword('mara.quill-2031', { username: 'mara.quill' })).toEqual([
+      'contains-username',
+    ]);
     expect(checkPassword('my-Stillwell-pass')).toEqual(['context-word']);
   });
 

@@ -74,7 +74,8 @@ export function checkPassword(password: string, context: PasswordContext = {}): 
   if (context.isCommon?.(lower)) problems.push('common');
   if (isRepetitiveOrRun(chars)) problems.push('repetitive');
   const username = context.username?.toLowerCase();
-  if (username && username.length >= 4 && lower.includes(username)) problems.push('contains-username');
+  if (username && username.length >= 4 && lower.includes(username))
+    problems.push('contains-username');
   if (CONTEXT_WORDS.some((w) => lower.includes(w))) problems.push('context-word');
   return problems;
 }

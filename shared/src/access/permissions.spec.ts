@@ -24,8 +24,14 @@ describe('the permission matrix', () => {
   });
 
   it('keeps the reviewer read-only and the stakeholder to notices', () => {
-    expect(permissionsOf(['reviewer']).filter((a) => WRITES.includes(a))).toEqual(['reports.create']);
-    expect(permissionsOf(['stakeholder'])).toEqual(['notices.read', 'notices.acknowledge', 'sessions.own']);
+    expect(permissionsOf(['reviewer']).filter((a) => WRITES.includes(a))).toEqual([
+      'reports.create',
+    ]);
+    expect(permissionsOf(['stakeholder'])).toEqual([
+      'notices.read',
+      'notices.acknowledge',
+      'sessions.own',
+    ]);
   });
 
   it('keeps the two-person rule possible: who drafts may not authorise by role alone', () => {
@@ -45,7 +51,9 @@ describe('the permission matrix', () => {
     const lines = permissionTableMarkdown().split('\n');
     expect(lines).toHaveLength(ACTIONS.length + 2);
     expect(lines[0]).toBe(`| action | ${ROLES.join(' | ')} |`);
-    expect(lines.find((l) => l.startsWith('| `users.manage`'))).toBe('| `users.manage` |  |  |  |  |  | yes |');
+    expect(lines.find((l) => l.startsWith('| `users.manage`'))).toBe(
+      '| `users.manage` |  |  |  |  |  | yes |',
+    );
   });
 
   it('refuses an empty or repeated role list', () => {

@@ -63,7 +63,8 @@ export function permissionTableMarkdown(): string {
   const header = `| action | ${ROLES.join(' | ')} |`;
   const rule = `|---|${ROLES.map(() => ':-:').join('|')}|`;
   const rows = permissionRows().map(
-    ({ action, allowed }) => `| \`${action}\` | ${ROLES.map((r) => (allowed[r] ? 'yes' : '')).join(' | ')} |`,
+    ({ action, allowed }) =>
+      `| \`${action}\` | ${ROLES.map((r) => (allowed[r] ? 'yes' : '')).join(' | ')} |`,
   );
   return [header, rule, ...rows].join('\n');
 }

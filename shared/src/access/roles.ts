@@ -1,7 +1,14 @@
 import { z } from 'zod';
 
 /** Every role a user can hold; a user holds one or more. */
-export const ROLES = ['operator', 'engineer', 'liaison', 'stakeholder', 'reviewer', 'admin'] as const;
+export const ROLES = [
+  'operator',
+  'engineer',
+  'liaison',
+  'stakeholder',
+  'reviewer',
+  'admin',
+] as const;
 export const roleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof roleSchema>;
 
@@ -9,7 +16,8 @@ export type Role = z.infer<typeof roleSchema>;
 export const ROLE_LABELS: Readonly<Record<Role, { title: string; description: string }>> = {
   operator: {
     title: 'Operator',
-    description: 'On shift: watches the reservoir, drafts gate operations, acknowledges alarms, keeps the shift log',
+    description:
+      'On shift: watches the reservoir, drafts gate operations, acknowledges alarms, keeps the shift log',
   },
   engineer: {
     title: 'Duty engineer',

@@ -2,6 +2,7 @@ export * from './schema.js';
 export * from './storage-validate.js';
 export * from './storage-curve.js';
 export * from './formulas.js';
+export * from './v-notch.js';
 export * from './rating-table.js';
 export * from './discharge.js';
 export * from './outflow-model.js';

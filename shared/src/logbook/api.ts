@@ -34,5 +34,25 @@ export const verificationReportSchema = z.strictObject({
       detail: z.string(),
     })
     .optional(),
+  /** the attachments the entries name, checked against their SHA-256 on disk */
+  attachments: z
+    .strictObject({
+      checked: z.number().int(),
+      bad: z.array(
+        z.strictObject({
+          seq: z.number().int(),
+          sha256: z.string(),
+          problem: z.enum(['missing', 'altered']),
+          detail: z.string(),
+        }),
+      ),
+    })
+    .optional(),
 });
 export type VerificationReport = z.infer<typeof verificationReportSchema>;
+
+export const logbookPageSchema = z.strictObject({
+  rows: z.array(logbookEntrySchema),
+  total: z.number().int(),
+});
+export type LogbookPage = z.infer<typeof logbookPageSchema>;

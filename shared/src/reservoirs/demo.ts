@@ -1,4 +1,4 @@
-import type { ReservoirDefinition } from './definition.js';
+import type { ChannelDefinition, ReservoirDefinition } from './definition.js';
 
 /**
  * The demo reservoir: Lake Orrin behind Orrin Gap Dam on the Tamsel River. Invented for the demo;
@@ -48,6 +48,49 @@ const gate = (n: number) => ({
   orificeCoefficient: 0.68,
   travelSpeed: 0.005,
 });
+
+/** Dam-safety instruments report every 5 minutes of site time (an automated data logger). */
+const weirHead = (side: 'left' | 'right'): ChannelDefinition => ({
+  id: `seepage.${side}`,
+  deviceId: `seepage-${side}`,
+  label: `Seepage weir, ${side} abutment (head)`,
+  role: 'seepage-weir-head',
+  unit: 'm',
+  min: 0,
+  max: 0.6,
+  intervalS: 300,
+  staleAfterS: 1500,
+});
+
+const piezometerChannel = (n: number): ChannelDefinition => ({
+  id: `piezometer.${n}`,
+  deviceId: 'foundation-logger',
+  label: `Foundation piezometer P${n}`,
+  role: 'piezometer',
+  unit: 'm',
+  min: 165,
+  max: 220,
+  intervalS: 300,
+  staleAfterS: 1500,
+});
+
+/**
+ * Piezometers: P1 and P2 upstream of the grout curtain (most of the head remains, answers within
+ * hours), P3 and P4 downstream of the drains (little remains, answers slowly). Each limit is the
+ * steady-state level with the pool 1.5 m above the dam crest: reaching it at lower pools means the
+ * curtain or the drains are not doing their work.
+ */
+const piezometer = (n: number, location: string, ratio: number, lagHours: number) => {
+  const downstreamLevel = 176;
+  return {
+    id: `p${n}`,
+    label: `P${n}`,
+    channel: `piezometer.${n}`,
+    location,
+    maxLevel: Math.round((downstreamLevel + ratio * (213.5 - downstreamLevel)) * 10) / 10,
+    baseline: { downstreamLevel, ratio, lagHours },
+  };
+};
 
 export const DEMO_RESERVOIR: ReservoirDefinition = {
   id: 'lake-orrin',
@@ -220,6 +263,104 @@ export const DEMO_RESERVOIR: ReservoirDefinition = {
       intervalS: 60,
       staleAfterS: 360,
     },
+    weirHead('left'),
+    weirHead('right'),
+    ...[1, 2, 3, 4].map(piezometerChannel),
   ],
   poolChannels: ['pool.radar', 'pool.pressure'],
+  /**
+   * Seepage baselines as fitted to earlier years (invented): about 5 l/s left and 3.5 l/s right at
+   * the start pool of 204.5 m. Limits: twice the steady-state flow at the dam crest or so.
+   */
+  seepageWeirs: [
+    {
+      id: 'weir-left',
+      label: 'Left abutment weir',
+      abutment: 'left',
+      channel: 'seepage.left',
+      notchAngleDeg: 90,
+      maxFlow: 0.015,
+      baseline: {
+        zeroFlowPool: 185,
+        referencePool: 207,
+        referenceFlow: 0.006,
+        exponent: 1.5,
+        lagHours: 4,
+        tolerance: 0.3,
+        toleranceFlow: 0.001,
+      },
+    },
+    {
+      id: 'weir-right',
+      label: 'Right abutment weir',
+      abutment: 'right',
+      channel: 'seepage.right',
+      notchAngleDeg: 90,
+      maxFlow: 0.012,
+      baseline: {
+        zeroFlowPool: 188,
+        referencePool: 207,
+        referenceFlow: 0.0042,
+        exponent: 1.4,
+        lagHours: 5,
+        tolerance: 0.3,
+        toleranceFlow: 0.001,
+      },
+    },
+  ],
+  piezometers: [
+    piezometer(1, 'foundation, left, upstream of the grout curtain', 0.55, 2),
+    piezometer(2, 'foundation, right, upstream of the grout curtain', 0.5, 2),
+    piezometer(3, 'foundation, left, downstream of the drains', 0.25, 6),
+    piezometer(4, 'foundation, right, downstream of the drains', 0.2, 6),
+  ],
+  /** Every limit spelled out, so the definition under review is the whole story (docs/alarms.md). */
+  alarms: {
+    poolLevels: [
+      { thresholdId: 'watch', priority: 'advisory', deadband: 0.05, onDelayS: 120 },
+      { thresholdId: 'normal-max', priority: 'prompt', deadband: 0.05, onDelayS: 120 },
+      { thresholdId: 'aux-spillway', priority: 'prompt', deadband: 0.05, onDelayS: 120 },
+      { thresholdId: 'freeboard-limit', priority: 'immediate', deadband: 0.05, onDelayS: 120 },
+      { thresholdId: 'dam-crest', priority: 'immediate', deadband: 0.05, onDelayS: 60 },
+    ],
+    rateOfRise: {
+      limit: 0.3,
+      windowS: 1800,
+      deadband: 0.05,
+      onDelayS: 600,
+      firstFilling: { active: false, limit: 0.02, windowS: 21600 },
+    },
+    gaugeDisagreement: { tolerance: 0.1, deadband: 0.03, windowS: 600, onDelayS: 600 },
+    frozen: [
+      { channel: 'pool.radar', band: 0.002, afterS: 1800 },
+      { channel: 'pool.pressure', band: 0.002, afterS: 1800 },
+      { channel: 'inflow', band: 0.05, afterS: 3600 },
+      { channel: 'outflow', band: 0.05, afterS: 3600 },
+      { channel: 'tailwater', band: 0.002, afterS: 3600 },
+      { channel: 'seepage.left', band: 0.0002, afterS: 7200 },
+      { channel: 'seepage.right', band: 0.0002, afterS: 7200 },
+      ...[1, 2, 3, 4].map((n) => ({ channel: `piezometer.${n}`, band: 0.002, afterS: 7200 })),
+    ],
+    outOfRange: { count: 3, windowS: 600, clearAfterS: 1800 },
+    massBalance: {
+      windowS: 10800,
+      endAverageS: 900,
+      toleranceFlow: 1,
+      toleranceFraction: 0.02,
+      clearFraction: 0.75,
+      onDelayS: 3600,
+      maxGapS: 900,
+      everyS: 300,
+    },
+    forecast: {
+      thresholds: ['aux-spillway', 'freeboard-limit'],
+      horizonS: 43200,
+      timeLeftMarginS: 10800,
+      timeLeftDeadbandS: 900,
+      clearAfterS: 1800,
+    },
+    seepage: { onDelayS: 1800, deadbandFraction: 0.1 },
+    piezometers: { onDelayS: 900, deadband: 0.1 },
+    shelveMaxS: 43200,
+  },
 };

@@ -1,3 +1,4 @@
+import { vNotchHead } from '@stillwell/shared/hydraulics';
 import type { ChannelDefinition, ReservoirDefinition } from '@stillwell/shared/reservoirs';
 import type { PlantState } from '../plant/reservoir-plant.js';
 import { gaussian, type Random } from '../plant/rng.js';
@@ -33,6 +34,10 @@ const ERRORS: Record<ChannelDefinition['role'], GaugeError> = {
   tailwater: { offset: 0, sigma: 0.02, relative: 0, decimals: 3 },
   'gate-opening': { ...NONE, decimals: 3 },
   'valve-opening': { ...NONE, decimals: 1 },
+  // a float or pressure transducer in the weir pool: half a millimetre, read to a tenth
+  'seepage-weir-head': { offset: 0, sigma: 0.0005, relative: 0, decimals: 4 },
+  // vibrating-wire piezometers: about a centimetre of water
+  piezometer: { offset: 0, sigma: 0.01, relative: 0, decimals: 3 },
 };
 
 /** Each pool gauge is set up slightly differently, so two gauges never agree exactly. */
@@ -66,6 +71,22 @@ function sourceOf(reservoir: ReservoirDefinition, c: ChannelDefinition) {
         }
       }
       break;
+    case 'seepage-weir-head': {
+      const weir = reservoir.seepageWeirs?.find((w) => w.channel === c.id);
+      if (!weir) break;
+      const notch = {
+        angleDeg: weir.notchAngleDeg,
+        dischargeCoefficient: weir.dischargeCoefficient,
+        headCorrection: weir.headCorrection,
+      };
+      // the weir reports the head its flow makes over the notch
+      return (s: Readonly<PlantState>) => vNotchHead(s.instruments.seepage[weir.id] ?? 0, notch);
+    }
+    case 'piezometer': {
+      const p = reservoir.piezometers?.find((x) => x.channel === c.id);
+      if (p) return (s: Readonly<PlantState>) => s.instruments.piezometers[p.id] ?? 0;
+      break;
+    }
   }
   throw new RangeError(`channel "${c.id}" (${c.role}) matches nothing in the plant`);
 }

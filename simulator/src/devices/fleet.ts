@@ -4,6 +4,7 @@ import { createRandom, deriveSeed } from '../plant/rng.js';
 import type { DeviceFault } from '../scenarios/scenario.js';
 import { channelReaders, type ChannelReader } from './channels.js';
 import { GateController } from './gate-controller.js';
+import { deviceClientId } from '../broker/accounts.js';
 import { DeviceLink } from './link.js';
 import { TelemetryDevice } from './telemetry-device.js';
 
@@ -16,6 +17,8 @@ export interface FleetOptions {
   /** plant time at the start, epoch ms */
   startMs: number;
   log?: (line: string) => void;
+  /** each device's broker account, by device id */
+  credentialsFor?: (deviceId: string) => { username: string; password: string };
 }
 
 /** While a gate or valve moves, its position is reported this often, plant seconds. */
@@ -26,6 +29,7 @@ export class DeviceFleet {
   private constructor(
     private readonly devices: readonly TelemetryDevice[],
     private readonly links: readonly DeviceLink[],
+    readonly controllers: readonly GateController[],
   ) {}
 
   static async connect(options: FleetOptions): Promise<DeviceFleet> {
@@ -38,7 +42,9 @@ export class DeviceFleet {
     }
     const ids = [...byDevice.keys()];
     const settled = await Promise.allSettled(
-      ids.map((id) => DeviceLink.connect(options.mqttUrl, `stillwell-sim-${id}`)),
+      ids.map((id) =>
+        DeviceLink.connect(options.mqttUrl, deviceClientId(id), options.credentialsFor?.(id)),
+      ),
     );
     const links = settled.flatMap((r) => (r.status === 'fulfilled' ? [r.value] : []));
     const failed = settled.find((r) => r.status === 'rejected');
@@ -47,6 +53,7 @@ export class DeviceFleet {
       throw failed.reason;
     }
     const devices: TelemetryDevice[] = [];
+    const controllers: GateController[] = [];
     try {
       for (const [i, deviceId] of ids.entries()) {
         const link = links[i];
@@ -76,16 +83,20 @@ export class DeviceFleet {
           await link.subscribe(controller.commandTopic, (payload) =>
             controller.handleCommand(payload),
           );
+          await link.subscribe(controller.rulesTopic, (payload) => controller.handleRules(payload));
+          controllers.push(controller);
         }
       }
     } catch (error) {
       await Promise.allSettled(links.map((l) => l.close()));
       throw error;
     }
-    return new DeviceFleet(devices, links);
+    return new DeviceFleet(devices, links, controllers);
   }
 
   onStep(state: Readonly<PlantState>): void {
+    // rules first: a gate an automatic rule starts is reported moving from this step on
+    for (const c of this.controllers) c.onStep(state);
     for (const d of this.devices) d.onStep(state);
   }
 

@@ -16,9 +16,15 @@ export class DeviceLink {
 
   private constructor(private readonly client: MqttClient) {}
 
-  static async connect(url: string, clientId: string): Promise<DeviceLink> {
+  /** `auth`: the device's broker account (a broker with an ACL refuses a device without one). */
+  static async connect(
+    url: string,
+    clientId: string,
+    auth?: { username: string; password: string },
+  ): Promise<DeviceLink> {
     const client = await connectAsync(url, {
       clientId,
+      ...auth,
       clean: true,
       reconnectPeriod: 1000,
       connectTimeout: 10_000,

@@ -2,6 +2,7 @@ import { createStorageCurve, totalOutflow, type StorageCurve } from '@stillwell/
 import type { ReservoirDefinition } from '@stillwell/shared/reservoirs';
 import { inflowAt, rainAt } from '../scenarios/hydrograph.js';
 import type { Scenario } from '../scenarios/scenario.js';
+import { DamInstruments, type InstrumentState } from './instruments.js';
 import { tailwaterElevation } from './tailwater.js';
 
 /** Something that can be set from a command: a gate (opening, m) or a valve (opening, %). */
@@ -42,6 +43,8 @@ export interface PlantState {
   beyondTable: boolean;
   /** actual positions, which lag the targets while the machinery travels */
   settings: Settings;
+  /** seepage weirs, piezometers, and the scenario's hidden leak (m3/s, out of storage, unmeasured) */
+  instruments: InstrumentState;
 }
 
 export interface PlantOptions {
@@ -96,6 +99,7 @@ export class ReservoirPlant {
   private readonly startMs: number;
   private current: PlantState;
   private targets: Settings;
+  private readonly instruments: DamInstruments;
 
   constructor(private readonly options: PlantOptions) {
     const { reservoir, scenario, startMs } = options;
@@ -110,6 +114,7 @@ export class ReservoirPlant {
     }
     this.targets = copy(settings);
     const pool = scenario.initial.pool;
+    this.instruments = new DamInstruments(reservoir, pool, scenario.leak);
     const outflow = this.outflowAt(
       pool,
       settings,
@@ -125,6 +130,7 @@ export class ReservoirPlant {
       tailwater: tailwaterElevation(reservoir.riverbedElevation, outflow),
       beyondTable: false,
       settings,
+      instruments: this.instruments.current,
     };
   }
 
@@ -165,9 +171,15 @@ export class ReservoirPlant {
     }
     const inflow1 = inflowAt(scenario, this.hourAt(t1));
     // Heun: Euler predictor with the end-of-step gate positions, then the trapezoidal corrector.
-    const predicted = s0.storage + dtS * (s0.inflow - s0.outflow);
-    const outPredicted = this.outflowAt(this.poolAt(predicted), settings1, s0.tailwater);
-    const storage = s0.storage + (dtS * (s0.inflow + inflow1 - s0.outflow - outPredicted)) / 2;
+    // A scenario's leak is one more (unmeasured) outflow.
+    const leak0 = s0.instruments.leak;
+    const predicted = s0.storage + dtS * (s0.inflow - s0.outflow - leak0);
+    const poolPredicted = this.poolAt(predicted);
+    const outPredicted = this.outflowAt(poolPredicted, settings1, s0.tailwater);
+    const leakPredicted = this.instruments.leakAt(this.hourAt(t1), poolPredicted);
+    const storage =
+      s0.storage +
+      (dtS * (s0.inflow + inflow1 - s0.outflow - outPredicted - leak0 - leakPredicted)) / 2;
     const pool = this.poolAt(storage);
     const outflow = this.outflowAt(pool, settings1, s0.tailwater);
     this.current = {
@@ -180,6 +192,7 @@ export class ReservoirPlant {
       tailwater: tailwaterElevation(reservoir.riverbedElevation, outflow),
       beyondTable: storage > this.curve.maxStorage || storage < this.curve.minStorage,
       settings: settings1,
+      instruments: this.instruments.step(dtS, pool, this.hourAt(t1)),
     };
     return this.current;
   }

@@ -5,6 +5,7 @@ export * from './scenario.js';
 export { DEMO_STORM } from './demo-storm.js';
 export { inflowAt, rainAt, pulseAt } from './hydrograph.js';
 export { parseFault, activeFault, checkFault } from './faults.js';
+export { parseLeak, leakFlow, LEAK_DEFAULTS } from './leak.js';
 
 /** Scenarios the command line can name. */
 export const SCENARIOS: Readonly<Record<string, Scenario>> = { [DEMO_STORM.id]: DEMO_STORM };

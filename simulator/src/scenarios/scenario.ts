@@ -1,3 +1,7 @@
+import type { Leak } from './leak.js';
+
+export type { Leak };
+
 /**
  * Scenario definitions are plain data so that new storms and fault drills can be written without
  * touching the model. Hours are counted from the plant's start time.
@@ -51,4 +55,6 @@ export interface Scenario {
   rainPulses: readonly Pulse[];
   initial: InitialSettings;
   faults: readonly DeviceFault[];
+  /** a hidden abutment leak (dam-safety drill), none by default */
+  leak?: Leak;
 }

@@ -5,7 +5,8 @@ import { ConsoleShell } from '../../components/layouts/console-shell';
 import { SiteClock } from '../../components/ui/site-clock';
 import { ErrorMessage, LoadingMessage } from '../../components/ui/state-message';
 import { UnitsToggle } from '../../components/ui/units-toggle';
-import { RESERVOIR_SCREENS } from '../../config/paths';
+import { paths, RESERVOIR_SCREENS } from '../../config/paths';
+import { AlarmBanner } from '../../features/alarms/components/alarm-banner';
 import { useReservoir } from '../../features/reservoirs/api/get-reservoir';
 import { useReservoirStatus } from '../../features/telemetry/api/get-reservoir-status';
 import { useLiveReservoir } from '../../features/telemetry/hooks/use-live-reservoir';
@@ -35,6 +36,7 @@ export function ReservoirLayout() {
       }))}
       status={
         <>
+          <AlarmBanner reservoirId={reservoirId} listHref={paths.alarms.getHref(reservoirId)} />
           {definition && (
             <SiteClock
               clock={status.data?.clock ?? null}

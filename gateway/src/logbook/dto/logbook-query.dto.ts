@@ -14,7 +14,41 @@ import {
 
 export const LOGBOOK_SORT_FIELDS = ['seq', 'time', 'kind', 'actorName'] as const;
 
-export class LogbookQueryDto {
+/** The filters of the logbook: the grid's and the CSV export's. */
+export class LogbookFilterDto {
+  @ApiPropertyOptional({ description: 'entry kind, or a prefix ending in "." (e.g. "auth.")' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(64)
+  @Matches(/^[a-z0-9.-]+$/)
+  kind?: string;
+
+  @ApiPropertyOptional({ description: 'actor user name' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(64)
+  actor?: string;
+
+  @ApiPropertyOptional({
+    description: 'a gate or valve id: entries about it (their payload lists it in controls)',
+  })
+  @IsOptional()
+  @IsString()
+  @Matches(/^[a-z0-9][a-z0-9-]{0,63}$/)
+  gate?: string;
+
+  @ApiPropertyOptional({ description: 'entries at or after this time (ISO 8601)' })
+  @IsOptional()
+  @IsISO8601({ strict: true })
+  from?: string;
+
+  @ApiPropertyOptional({ description: 'entries at or before this time (ISO 8601)' })
+  @IsOptional()
+  @IsISO8601({ strict: true })
+  to?: string;
+}
+
+export class LogbookQueryDto extends LogbookFilterDto {
   @ApiPropertyOptional({ description: 'page number, from 0' })
   @IsOptional()
   @Type(() => Number)
@@ -39,29 +73,6 @@ export class LogbookQueryDto {
   @IsOptional()
   @IsIn(['asc', 'desc'])
   order?: 'asc' | 'desc';
-
-  @ApiPropertyOptional({ description: 'entry kind, or a prefix ending in "." (e.g. "auth.")' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(64)
-  @Matches(/^[a-z0-9.-]+$/)
-  kind?: string;
-
-  @ApiPropertyOptional({ description: 'actor user name' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(64)
-  actor?: string;
-
-  @ApiPropertyOptional({ description: 'entries at or after this time (ISO 8601)' })
-  @IsOptional()
-  @IsISO8601({ strict: true })
-  from?: string;
-
-  @ApiPropertyOptional({ description: 'entries at or before this time (ISO 8601)' })
-  @IsOptional()
-  @IsISO8601({ strict: true })
-  to?: string;
 }
 
 export class VerifyQueryDto {

@@ -12,11 +12,31 @@ export interface ChartLine {
   crest: boolean;
 }
 
+/**
+ * A forecast to draw ahead of now (display units, x in s): the band between low and high shaded,
+ * the median dashed, the inflow forecast dotted. Made by the forecasts feature, drawn here.
+ */
+export interface ChartForecast {
+  t: number[];
+  low: number[];
+  median: number[];
+  high: number[];
+  inflow: number[];
+  /** how far past now the x axis reaches, s */
+  aheadS: number;
+}
+
+/** Series order: x, pool, inflow, then the forecast's (empty columns when there is none). */
+export const SERIES = { pool: 1, inflow: 2, low: 3, median: 4, high: 5, forecastInflow: 6 } as const;
+export const SERIES_COUNT = 7;
+
 /** What moves between draws without rebuilding the chart. */
 export interface ChartFrame {
-  /** the site's now, s: the window's right edge */
+  /** the site's now, s: the end of the observed window */
   windowEndS: number;
   windowS: number;
+  /** how far the x axis reaches past now, for the forecast (s; default 0) */
+  aheadS?: number;
   /** display units; the level axis shows at least this */
   levelRange: [number, number];
   lines: readonly ChartLine[];
@@ -48,6 +68,29 @@ function timeTicks(timeZone: string) {
 const AXIS_FONT = `12px ${fonts.mono}`;
 const LABEL_FONT = `13px ${fonts.sans}`;
 
+/** A vertical mark at the site's now when the chart shows a forecast beyond it. */
+function drawNow(u: uPlot, frame: ChartFrame) {
+  if (!frame.aheadS) return;
+  const { ctx, bbox } = u;
+  const px = uPlot.pxRatio;
+  const x = Math.round(u.valToPos(frame.windowEndS, 'x', true));
+  if (x < bbox.left || x > bbox.left + bbox.width) return;
+  ctx.save();
+  ctx.strokeStyle = dataInk.crest;
+  ctx.lineWidth = px;
+  ctx.setLineDash([2 * px, 3 * px]);
+  ctx.beginPath();
+  ctx.moveTo(x, bbox.top);
+  ctx.lineTo(x, bbox.top + bbox.height);
+  ctx.stroke();
+  ctx.fillStyle = ink.secondary;
+  ctx.font = `${Math.round(11 * px)}px ${fonts.sans}`;
+  ctx.textAlign = 'left';
+  ctx.textBaseline = 'top';
+  ctx.fillText('now · forecast →', x + 4 * px, bbox.top + 2 * px);
+  ctx.restore();
+}
+
 function drawLines(u: uPlot, lines: readonly ChartLine[]) {
   const { ctx, bbox } = u;
   const px = uPlot.pxRatio;
@@ -73,9 +116,9 @@ function drawLines(u: uPlot, lines: readonly ChartLine[]) {
 
 /**
  * uPlot options for pool elevation (left axis) and inflow (right axis) over a site-time window.
- * Series are x, observed pool, observed inflow. The forecast band (a later issue) joins after
- * them as a pair of level series filled between with `bands`, and the x range then reaches past
- * the site's now.
+ * Series are x, observed pool, observed inflow, then the forecast: the p10 and p90 of the pool
+ * filled between with `bands`, the median, and the inflow forecast; the x range then reaches past
+ * the site's now by the frame's aheadS.
  */
 export function buildChartOptions(input: ChartOptionsInput): uPlot.Options {
   const { width, height, timeZone, levelUnit, flowUnit, frame } = input;
@@ -97,8 +140,8 @@ export function buildChartOptions(input: ChartOptionsInput): uPlot.Options {
       x: {
         time: true,
         range: () => {
-          const { windowEndS, windowS } = frame();
-          return [windowEndS - windowS, windowEndS];
+          const { windowEndS, windowS, aheadS = 0 } = frame();
+          return [windowEndS - windowS, windowEndS + aheadS];
         },
       },
       level: {
@@ -138,7 +181,39 @@ export function buildChartOptions(input: ChartOptionsInput): uPlot.Options {
         width: 1.75,
         value: (_u, v) => (v == null ? '—' : v.toFixed(v < 100 ? 1 : 0)),
       },
+      {
+        label: 'Forecast p10',
+        scale: 'level',
+        stroke: dataInk.band,
+        width: 1,
+        value: (_u, v) => (v == null ? '—' : v.toFixed(2)),
+      },
+      {
+        label: 'Forecast median',
+        scale: 'level',
+        stroke: dataInk.level,
+        width: 1.5,
+        dash: [8, 5],
+        value: (_u, v) => (v == null ? '—' : v.toFixed(2)),
+      },
+      {
+        label: 'Forecast p90',
+        scale: 'level',
+        stroke: dataInk.band,
+        width: 1,
+        value: (_u, v) => (v == null ? '—' : v.toFixed(2)),
+      },
+      {
+        label: `Inflow forecast (${flowUnit})`,
+        scale: 'flow',
+        stroke: dataInk.flow,
+        width: 1.25,
+        dash: [2, 4],
+        value: (_u, v) => (v == null ? '—' : v.toFixed(v < 100 ? 1 : 0)),
+      },
     ],
+    // p10 to p90 shaded: the spread of the ensemble, never one line presented as certain
+    bands: [{ series: [SERIES.high, SERIES.low], fill: dataInk.bandFill }],
     axes: [
       { ...axis, values: timeTicks(timeZone), size: 44 },
       { ...axis, scale: 'level', label: `Pool elevation (${levelUnit})`, size: 64 },
@@ -152,7 +227,12 @@ export function buildChartOptions(input: ChartOptionsInput): uPlot.Options {
       },
     ],
     hooks: {
-      draw: [(u) => drawLines(u, frame().lines)],
+      draw: [
+        (u) => {
+          drawLines(u, frame().lines);
+          drawNow(u, frame());
+        },
+      ],
     },
   };
 }

@@ -2,7 +2,14 @@ import { useEffect, useLayoutEffect, useRef } from 'react';
 import Box from '@mui/material/Box';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
-import { buildChartOptions, type ChartFrame } from './chart-options';
+import { buildChartOptions, SERIES_COUNT, type ChartFrame } from './chart-options';
+
+/** Data with a column for every series the options declare (missing ones empty). */
+function complete(data: uPlot.AlignedData): uPlot.AlignedData {
+  if (data.length >= SERIES_COUNT) return data;
+  const empty = () => new Array<undefined>(data[0]?.length ?? 0).fill(undefined);
+  return [...data, ...Array.from({ length: SERIES_COUNT - data.length }, empty)] as uPlot.AlignedData;
+}
 
 export interface LevelInflowChartProps {
   data: uPlot.AlignedData;
@@ -30,11 +37,11 @@ export function LevelInflowChart({
 }: LevelInflowChartProps) {
   const containerRef = useRef<HTMLDivElement>(null);
   const plotRef = useRef<uPlot | null>(null);
-  const latest = useRef({ data, frame });
+  const latest = useRef({ data: complete(data), frame });
 
   useLayoutEffect(() => {
-    latest.current = { data, frame };
-    plotRef.current?.setData(data);
+    latest.current = { data: complete(data), frame };
+    plotRef.current?.setData(latest.current.data);
   }, [data, frame]);
 
   useEffect(() => {

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import Box from '@mui/material/Box';
 import Stack from '@mui/material/Stack';
 import Typography from '@mui/material/Typography';
@@ -12,16 +13,22 @@ import { useStatusFreshness } from '../hooks/use-status-freshness';
 import { buildGaugeModel } from '../utils/gauge-model';
 import { describeChannels, doubtOf } from '../utils/channel-health';
 import { ChannelTable } from './channel-table';
+import type { ChartForecast } from './chart-options';
 import { KeyReadouts } from './key-readouts';
 import { LevelInflowPanel } from './level-inflow-panel';
 import { PoolGauge } from './pool-gauge';
 
 export interface OverviewScreenProps {
   definition: ReservoirDefinition;
+  /**
+   * The forecast, composed by the route from the forecasts feature: its readouts (shown under
+   * the key numbers) and its band for the chart.
+   */
+  forecast?: { readouts: ReactNode; band: ChartForecast | null };
 }
 
 /** The live overview of one reservoir. */
-export function OverviewScreen({ definition }: OverviewScreenProps) {
+export function OverviewScreen({ definition, forecast }: OverviewScreenProps) {
   const [system] = useUnitSystem();
   const statusQuery = useReservoirStatus(definition.id);
   const freshness = useStatusFreshness(statusQuery.data, statusQuery.dataUpdatedAt);
@@ -76,7 +83,13 @@ export function OverviewScreen({ definition }: OverviewScreenProps) {
             channels={channels}
             system={system}
           />
-          <LevelInflowPanel definition={definition} status={status} system={system} />
+          {forecast?.readouts}
+          <LevelInflowPanel
+            definition={definition}
+            status={status}
+            system={system}
+            forecast={forecast?.band ?? null}
+          />
           <Panel
             title="Gauges"
             aside={

@@ -51,3 +51,40 @@ function latestPerTime(series: ReadingSeries): Map<number, Point> {
   });
   return points;
 }
+
+/** A forecast's columns as the chart takes them (display units, x in s). */
+export interface ForecastColumns {
+  t: readonly number[];
+  low: readonly number[];
+  median: readonly number[];
+  high: readonly number[];
+  inflow: readonly number[];
+}
+
+/**
+ * The observed columns [x, pool, inflow] with the forecast's four after them, on one ascending x:
+ * where a series has no point at an x its value is undefined (joined across, never a gap that
+ * looks like bad data). Without a forecast its columns are all undefined.
+ */
+export function withForecast(
+  observed: uPlot.AlignedData,
+  forecast: ForecastColumns | null,
+): uPlot.AlignedData {
+  const [xs, ...columns] = observed;
+  const fx = forecast?.t ?? [];
+  const times = [...new Set([...xs, ...fx])].sort((a, b) => a - b);
+  const index = new Map(times.map((t, i) => [t, i] as const));
+  const place = (x: ArrayLike<number>, ys: ArrayLike<number | null | undefined>) => {
+    const out: (number | null | undefined)[] = new Array<undefined>(times.length).fill(undefined);
+    for (let i = 0; i < x.length; i++) {
+      const k = index.get(x[i]!);
+      if (k !== undefined) out[k] = ys[i];
+    }
+    return out;
+  };
+  const observedColumns = columns.map((c) => place(xs, c));
+  const forecastColumns = forecast
+    ? [forecast.low, forecast.median, forecast.high, forecast.inflow].map((c) => place(fx, c))
+    : [0, 1, 2, 3].map(() => new Array<undefined>(times.length).fill(undefined));
+  return [times, ...observedColumns, ...forecastColumns];
+}

@@ -1,0 +1,48 @@
+import {
+  PRIORITY_INFO,
+  type AlarmEventKind,
+  type AlarmView,
+  type DisplayState,
+  type Priority,
+} from '@stillwell/shared/alarms';
+import { formatNumber, formatSiteTime } from '../../../lib/format';
+
+/** ISA-18.2's state names, as the list shows them. */
+export const STATE_TEXT: Readonly<Record<DisplayState, string>> = {
+  unacknowledged: 'Active, unacknowledged',
+  acknowledged: 'Active, acknowledged',
+  'cleared-unacknowledged': 'Cleared, unacknowledged',
+  normal: 'Cleared, acknowledged',
+  shelved: 'Shelved',
+  'out-of-service': 'Out of service',
+};
+
+export const EVENT_TEXT: Readonly<Record<AlarmEventKind, string>> = {
+  raised: 'Raised',
+  cleared: 'Cleared',
+  acknowledged: 'Acknowledged',
+  shelved: 'Shelved',
+  'shelf-expired': 'Shelf ran out',
+  'removed-from-service': 'Taken out of service',
+  'returned-to-service': 'Returned to service',
+};
+
+export function priorityLabel(p: Priority): string {
+  return PRIORITY_INFO[p].label;
+}
+
+/** A site time as "14:05:09 GMT, Tue 3 Mar". */
+export function siteStamp(ms: number | null, timeZone: string): string {
+  if (ms === null) return '—';
+  const t = formatSiteTime(ms, timeZone);
+  return `${t.time} ${t.zone}, ${t.date}`;
+}
+
+/** The value against its limit in the alarm's own unit (SI), or nothing where there is none. */
+export function valueText(a: Pick<AlarmView, 'value' | 'limit' | 'unit'>): string {
+  if (a.value === null) return '';
+  const unit = a.unit ?? '';
+  const digits = unit === 'm3/s' && Math.abs(a.value) < 1 ? 4 : unit === 'm/h' ? 3 : 2;
+  const v = `${formatNumber(a.value, digits)} ${unit}`.trim();
+  return a.limit === null ? v : `${v} (limit ${formatNumber(a.limit, digits)} ${unit})`.trim();
+}

@@ -1,0 +1,14 @@
+export * from './api.js';
+export * from './conditions.js';
+export * from './detector.js';
+export * from './engine.js';
+export { LagFilter, type EngineReading, type ForecastOutlook } from './engine-state.js';
+export { baselineFlow, baselineLimit, weirFlow } from './evaluate-dam-safety.js';
+export * from './lifecycle.js';
+export * from './limits.js';
+export * from './mass-balance.js';
+export * from './performance.js';
+export * from './priorities.js';
+export * from './series.js';
+export * from './settings.js';
+export * from './dam-safety-api.js';

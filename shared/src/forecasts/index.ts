@@ -1,0 +1,3 @@
+export * from './api.js';
+export * from './tables.js';
+export * from './what-if.js';
