@@ -98,7 +98,17 @@ describe('every route of the API document, with every role and with none, as the
         .filter((o) => o.isPublic)
         .map((o) => `${o.method} ${o.path}`)
         .sort(),
-    ).toEqual(['get /api/health', 'post /api/auth/refresh', 'post /api/auth/sign-in']);
+    ).toEqual([
+      'get /api/health',
+      // downstream contacts follow their e-mailed link without an account; emergency-management
+      // systems read the CAP feed without one
+      'get /api/notices/ack/{token}',
+      'get /api/notices/alerts/{noticeId}.xml',
+      'get /api/notices/feed.json',
+      'get /api/notices/feed.xml',
+      'post /api/auth/refresh',
+      'post /api/auth/sign-in',
+    ]);
   });
 
   it('refuses every protected route without a token (401 unauthenticated), and lets public ones past the guard', async () => {

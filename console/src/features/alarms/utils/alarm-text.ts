@@ -41,8 +41,13 @@ export function siteStamp(ms: number | null, timeZone: string): string {
 /** The value against its limit in the alarm's own unit (SI), or nothing where there is none. */
 export function valueText(a: Pick<AlarmView, 'value' | 'limit' | 'unit'>): string {
   if (a.value === null) return '';
-  const unit = a.unit ?? '';
-  const digits = unit === 'm3/s' && Math.abs(a.value) < 1 ? 4 : unit === 'm/h' ? 3 : 2;
-  const v = `${formatNumber(a.value, digits)} ${unit}`.trim();
-  return a.limit === null ? v : `${v} (limit ${formatNumber(a.limit, digits)} ${unit})`.trim();
+  // small flows (seepage) read in litres per second
+  const litres = a.unit === 'm3/s' && Math.abs(a.value) < 1 && Math.abs(a.limit ?? 0) < 1;
+  const scale = litres ? 1000 : 1;
+  const unit = litres ? 'l/s' : (a.unit ?? '');
+  const digits = litres ? 1 : unit === 'm/h' ? 3 : 2;
+  const v = `${formatNumber(a.value * scale, digits)} ${unit}`.trim();
+  return a.limit === null
+    ? v
+    : `${v} (limit ${formatNumber(a.limit * scale, digits)} ${unit})`.trim();
 }

@@ -2,7 +2,10 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { forecastUpdateSchema, type ForecastUpdate } from '@stillwell/shared/forecasts';
 import { apiGet } from '../../../lib/api-client';
 
-export function getLatestForecast(reservoirId: string, signal?: AbortSignal): Promise<ForecastUpdate> {
+export function getLatestForecast(
+  reservoirId: string,
+  signal?: AbortSignal,
+): Promise<ForecastUpdate> {
   return apiGet(
     `/api/reservoirs/${encodeURIComponent(reservoirId)}/forecasts/latest`,
     forecastUpdateSchema,

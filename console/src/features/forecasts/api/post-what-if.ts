@@ -9,7 +9,8 @@ import {
 } from '@stillwell/shared/forecasts';
 import { apiPost } from '../../../lib/api-client';
 
-const base = (reservoirId: string) => `/api/reservoirs/${encodeURIComponent(reservoirId)}/forecasts`;
+const base = (reservoirId: string) =>
+  `/api/reservoirs/${encodeURIComponent(reservoirId)}/forecasts`;
 
 export function postWhatIf(reservoirId: string, body: WhatIfRequest): Promise<WhatIfResponse> {
   return apiPost(`${base(reservoirId)}/what-if`, body, whatIfResponseSchema);

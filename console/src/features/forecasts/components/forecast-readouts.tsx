@@ -27,7 +27,13 @@ export interface ForecastReadoutsProps {
  * when, the next threshold and how long until it, and the smallest opening that holds the target
  * if ordered now. Each carries its age, and the caution.
  */
-export function ForecastReadouts({ update, siteNowMs, system, timeZone, error }: ForecastReadoutsProps) {
+export function ForecastReadouts({
+  update,
+  siteNowMs,
+  system,
+  timeZone,
+  error,
+}: ForecastReadoutsProps) {
   const run = update?.run ?? null;
   const countdown = countdownOf(update, siteNowMs);
   const now = siteNowMs ?? run?.computedAtMs ?? 0;
@@ -56,7 +62,10 @@ export function ForecastReadouts({ update, siteNowMs, system, timeZone, error }:
         sx={{
           display: 'grid',
           gap: 1.5,
-          gridTemplateColumns: { xs: '1fr', md: 'minmax(300px, 1.6fr) repeat(3, minmax(160px, 1fr))' },
+          gridTemplateColumns: {
+            xs: '1fr',
+            md: 'minmax(300px, 1.6fr) repeat(3, minmax(160px, 1fr))',
+          },
         }}
       >
         <TimeLeftCountdown countdown={countdown} planLabel={run?.timeLeft.plan.label ?? null} />

@@ -23,7 +23,11 @@ export function TimeLeftCountdown({ countdown, planLabel }: TimeLeftCountdownPro
       aria-label="Time left to act"
       data-testid="time-left"
       data-state={countdown.state}
-      sx={{ p: 1.75, minWidth: 0, borderColor: countdown.severity === 'normal' ? undefined : color }}
+      sx={{
+        p: 1.75,
+        minWidth: 0,
+        borderColor: countdown.severity === 'normal' ? undefined : color,
+      }}
     >
       <Typography variant="overline" component="h2" sx={{ color: 'text.secondary' }}>
         Time left to act

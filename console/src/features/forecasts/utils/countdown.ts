@@ -6,7 +6,8 @@ import type { Severity } from '../../../lib/severity';
  * (said by the gateway, or reached here while waiting for the next run); impossible: the standard
  * plan is not enough even now; not-needed: the forecast peak stays below the target; none: no run.
  */
-export type CountdownState = 'ok' | 'soon' | 'urgent' | 'past' | 'impossible' | 'not-needed' | 'none';
+export type CountdownState =
+  'ok' | 'soon' | 'urgent' | 'past' | 'impossible' | 'not-needed' | 'none';
 
 /** Site time left at which the countdown asks for attention, then insists. */
 export const SOON_S = 2 * 3600;
@@ -39,7 +40,10 @@ export function formatCountdown(seconds: number): string {
   return `${sign}${h}:${String(m).padStart(2, '0')}:${String(sec).padStart(2, '0')}`;
 }
 
-export function countdownOf(update: ForecastUpdate | undefined, siteNowMs: number | null): Countdown {
+export function countdownOf(
+  update: ForecastUpdate | undefined,
+  siteNowMs: number | null,
+): Countdown {
   const run = update?.run ?? null;
   if (!run) {
     return {

@@ -30,6 +30,13 @@ export function DamSafetyScreen({ definition }: DamSafetyScreenProps) {
   const q = useDamSafety(definition.id, days);
   const d = q.data;
   const mb = d?.massBalance ?? null;
+  // plots span the record there is, not an empty week before a young record
+  const firsts = d
+    ? [d.pool.t[0], ...d.weirs.map((w) => w.t[0]), ...d.piezometers.map((p) => p.t[0])].filter(
+        (t): t is number => t !== undefined,
+      )
+    : [];
+  const fromMs = d ? Math.max(d.fromMs, Math.min(d.toMs - 3_600_000, ...firsts)) : 0;
   return (
     <Box sx={{ display: 'flex', flexDirection: 'column', gap: 2 }}>
       <Panel
@@ -76,7 +83,7 @@ export function DamSafetyScreen({ definition }: DamSafetyScreenProps) {
             <WeirPanel
               key={s.weir.id}
               s={s}
-              fromMs={d.fromMs}
+              fromMs={fromMs}
               toMs={d.toMs}
               timeZone={definition.timeZone}
               system={system}
@@ -86,7 +93,7 @@ export function DamSafetyScreen({ definition }: DamSafetyScreenProps) {
             <PiezometerPanel
               key={s.piezometer.id}
               s={s}
-              fromMs={d.fromMs}
+              fromMs={fromMs}
               toMs={d.toMs}
               timeZone={definition.timeZone}
               system={system}

@@ -27,7 +27,14 @@ export interface ChartForecast {
 }
 
 /** Series order: x, pool, inflow, then the forecast's (empty columns when there is none). */
-export const SERIES = { pool: 1, inflow: 2, low: 3, median: 4, high: 5, forecastInflow: 6 } as const;
+export const SERIES = {
+  pool: 1,
+  inflow: 2,
+  low: 3,
+  median: 4,
+  high: 5,
+  forecastInflow: 6,
+} as const;
 export const SERIES_COUNT = 7;
 
 /** What moves between draws without rebuilding the chart. */

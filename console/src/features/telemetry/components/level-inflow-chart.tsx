@@ -8,7 +8,10 @@ import { buildChartOptions, SERIES_COUNT, type ChartFrame } from './chart-option
 function complete(data: uPlot.AlignedData): uPlot.AlignedData {
   if (data.length >= SERIES_COUNT) return data;
   const empty = () => new Array<undefined>(data[0]?.length ?? 0).fill(undefined);
-  return [...data, ...Array.from({ length: SERIES_COUNT - data.length }, empty)] as uPlot.AlignedData;
+  return [
+    ...data,
+    ...Array.from({ length: SERIES_COUNT - data.length }, empty),
+  ] as uPlot.AlignedData;
 }
 
 export interface LevelInflowChartProps {
