@@ -1,10 +1,13 @@
+import { SignInGate } from '../features/auth/components/sign-in-gate';
 import { AppProvider } from './provider';
 import { AppRouter } from './router';
 
 export function App() {
   return (
     <AppProvider>
-      <AppRouter />
+      <SignInGate>
+        <AppRouter />
+      </SignInGate>
     </AppProvider>
   );
 }

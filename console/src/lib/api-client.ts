@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { apiErrorSchema } from '@stillwell/shared/http';
 import { describeIssues } from '@stillwell/shared/telemetry';
 import { env } from '../config/env';
+import { authFetch } from './auth-session';
 
 /** A failed request to the gateway. status 0 means the gateway could not be reached at all. */
 export class ApiError extends Error {
@@ -52,7 +53,7 @@ async function toApiError(response: Response, path: string): Promise<ApiError> {
 
 /**
  * GET a JSON resource and check it against its schema. This is the console's one way to reach the
- * gateway over HTTP, so sign-in (a later issue) attaches its token and handles 401 here only.
+ * gateway over HTTP, so sign-in attaches its token and handles 401 here only (through authFetch).
  */
 export async function apiGet<S extends z.ZodType>(
   path: string,
@@ -62,7 +63,7 @@ export async function apiGet<S extends z.ZodType>(
   const headers = new Headers({ Accept: 'application/json' });
   let response: Response;
   try {
-    response = await fetch(buildUrl(path, options.query), {
+    response = await authFetch(buildUrl(path, options.query), {
       headers,
       signal: options.signal,
       credentials: 'same-origin',
@@ -95,7 +96,7 @@ export async function apiPost<S extends z.ZodType>(
 ): Promise<z.output<S>> {
   let response: Response;
   try {
-    response = await fetch(buildUrl(path, options.query), {
+    response = await authFetch(buildUrl(path, options.query), {
       method: 'POST',
       headers: new Headers({ Accept: 'application/json', 'Content-Type': 'application/json' }),
       body: JSON.stringify(body),
@@ -121,7 +122,7 @@ export async function apiPost<S extends z.ZodType>(
 async function send(path: string, init: RequestInit, options: RequestOptions): Promise<Response> {
   let response: Response;
   try {
-    response = await fetch(buildUrl(path, options.query), {
+    response = await authFetch(buildUrl(path, options.query), {
       ...init,
       signal: options.signal,
       credentials: 'same-origin',

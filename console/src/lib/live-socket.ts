@@ -9,6 +9,7 @@ import {
   type SubscribeRequest,
 } from '@stillwell/shared/telemetry';
 import { env } from '../config/env';
+import { session } from './auth-session';
 
 /** What the console listens to. Payloads are unknown until checked against the shared schemas. */
 export interface LiveSocketEvents {
@@ -80,14 +81,15 @@ interface ClientToServer {
 
 type Listener = (...args: never[]) => void;
 
-/** The one place a live connection is made, so sign-in (a later issue) adds its token here. */
+/** The one place a live connection is made, so sign-in adds its token here. */
 export function createLiveSocket(): LiveSocket {
   const socket: Socket<ServerToClient, ClientToServer> = io(
     `${env.gatewayOrigin}${LIVE_NAMESPACE}`,
     {
       path: '/socket.io',
       autoConnect: false,
-      // The token will travel as `auth: { token }` in these options.
+      // read at every (re)connect, so a renewed token is used
+      auth: (cb) => cb({ token: session()?.accessToken ?? '' }),
     },
   );
   // socket.io's overloads do not line up with a generic event map, hence the cast to its own type.

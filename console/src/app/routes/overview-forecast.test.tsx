@@ -18,7 +18,9 @@ function stubGateway(latest: unknown = makeUpdate()) {
   return stubFetch({
     [base]: { version: 3, definition },
     [`${base}/status`]: makeStatus(),
-    [`${base}/channels/pool.radar/readings`]: makeSeries('pool.radar', [[SITE_NOW - 60_000, 206.95]]),
+    [`${base}/channels/pool.radar/readings`]: makeSeries('pool.radar', [
+      [SITE_NOW - 60_000, 206.95],
+    ]),
     [`${base}/channels/inflow/readings`]: makeSeries('inflow', [[SITE_NOW - 60_000, 840]]),
     [`${base}/forecasts/latest`]: latest,
   });
@@ -41,7 +43,9 @@ describe('overview with the forecast', () => {
     stubGateway();
     renderApp(OVERVIEW);
     const countdown = await screen.findByTestId('time-left');
-    await waitFor(() => expect(within(countdown).getByTestId('time-left-clock').textContent).toBe('2:30:00'));
+    await waitFor(() =>
+      expect(within(countdown).getByTestId('time-left-clock').textContent).toBe('2:30:00'),
+    );
     expect(countdown.getAttribute('data-state')).toBe('ok');
     expect(screen.getByTestId('forecast-peak').textContent).toBe('209.40');
     // the aux spillway crest 20 h ahead (the lower levels are already exceeded)
@@ -55,7 +59,12 @@ describe('overview with the forecast', () => {
   it('draws the band and the median ahead of now, with the x axis reaching past now', async () => {
     stubGateway();
     renderApp(OVERVIEW);
-    await waitFor(() => expect(chart().data[4]!.filter((v) => v != null).length).toBeGreaterThan(100));
+    await waitFor(() =>
+      expect(
+        Array.from(chart().data[4] as ArrayLike<number | null | undefined>).filter((v) => v != null)
+          .length,
+      ).toBeGreaterThan(100),
+    );
     const [xs, pool, , low, median, high] = chart().data;
     const now = SITE_NOW / 1000;
     expect(xs.at(-1)).toBe(now + 12 * 3600);
@@ -82,8 +91,12 @@ describe('overview with the forecast', () => {
     await waitFor(() => expect(clock.textContent).toBe('1:30:00'));
     expect(screen.getByTestId('time-left').getAttribute('data-state')).toBe('soon');
     act(() => vi.setSystemTime(WALL0 + 26_000));
-    await waitFor(() => expect(screen.getByTestId('time-left').getAttribute('data-state')).toBe('past'));
-    expect(screen.getByTestId('time-left-headline').textContent).toBe('Too late for the standard plan');
+    await waitFor(() =>
+      expect(screen.getByTestId('time-left').getAttribute('data-state')).toBe('past'),
+    );
+    expect(screen.getByTestId('time-left-headline').textContent).toBe(
+      'Too late for the standard plan',
+    );
   });
 
   it('takes pushed runs and follows the forecast room', async () => {
@@ -91,11 +104,23 @@ describe('overview with the forecast', () => {
     const { socket, queryClient } = renderApp(OVERVIEW);
     await screen.findByTestId('time-left-clock');
     act(() => socket.serverConnects());
-    expect(socket.forecastSubscriptions.map((s) => s.request)).toEqual([{ reservoirId: definition.id }]);
+    expect(socket.forecastSubscriptions.map((s) => s.request)).toEqual([
+      { reservoirId: definition.id },
+    ]);
     const run = makeRun({ id: 8, computedAtMs: SITE_NOW + 60_000 });
-    const impossible = { ...run, timeLeft: { ...run.timeLeft, status: 'impossible' as const, latestStartMs: null, message: 'even started now the peak is 211 m' } };
+    const impossible = {
+      ...run,
+      timeLeft: {
+        ...run.timeLeft,
+        status: 'impossible' as const,
+        latestStartMs: null,
+        message: 'even started now the peak is 211 m',
+      },
+    };
     act(() => socket.push('forecast', makeUpdate(impossible)));
-    await waitFor(() => expect(screen.getByTestId('time-left').getAttribute('data-state')).toBe('impossible'));
+    await waitFor(() =>
+      expect(screen.getByTestId('time-left').getAttribute('data-state')).toBe('impossible'),
+    );
     // an older run pushed late does not win (the cache is written at once: no waiting)
     act(() => socket.push('forecast', makeUpdate(makeRun())));
     const cached = queryClient.getQueryData<ForecastUpdate>(latestForecastQueryKey(definition.id));
@@ -104,7 +129,9 @@ describe('overview with the forecast', () => {
   });
 
   it('says plainly when there is no forecast yet, and why', async () => {
-    stubGateway(makeUpdate(null, 'no usable pool reading: every pool gauge is stale, suspect or bad'));
+    stubGateway(
+      makeUpdate(null, 'no usable pool reading: every pool gauge is stale, suspect or bad'),
+    );
     renderApp(OVERVIEW);
     const countdown = await screen.findByTestId('time-left');
     await waitFor(() => expect(countdown.getAttribute('data-state')).toBe('none'));

@@ -19,8 +19,7 @@ export function PeriodBars({ periods, height = 140 }: PeriodBarsProps) {
       aria-label="Alarms per 10 minutes"
       viewBox={`0 0 ${width} ${height}`}
       width="100%"
-      height={height}
-      preserveAspectRatio="none"
+      style={{ maxHeight: height * 1.5 }}
     >
       {periods.map((n, i) =>
         n > 0 ? (
