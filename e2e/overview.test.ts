@@ -25,8 +25,8 @@ test('the overview shows the pool elevation rising live, and marks a silent chan
   // demo mode prints each account's password at start; sign in as the operator through the form
   const password = /^\s+operator\s+(\S+)\s/m.exec(product.output())?.[1];
   assert.ok(password, 'no demo password for the operator in the output');
-  await page.getByLabel('Username').fill('operator');
-  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.locator('input[autocomplete="username"]').fill('operator');
+  await page.locator('input[type="password"]').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   const pool = page.getByTestId('pool-elevation');
   await pool.waitFor({ timeout: 30_000 });

@@ -1,5 +1,6 @@
 import { createContext, useContext, useEffect, useState, type ReactNode } from 'react';
 import type { LiveSocket } from './live-socket';
+import { onSessionChange } from './auth-session';
 
 /** connecting: never connected yet; reconnecting: lost and retrying; offline: not trying. */
 export type LiveConnectionState = 'connecting' | 'connected' | 'reconnecting' | 'offline';
@@ -28,7 +29,15 @@ export function LiveConnectionProvider({ socket, children }: LiveConnectionProvi
     window.addEventListener('offline', lost);
     window.addEventListener('online', onBrowserOnline);
     socket.connect();
+    // a handshake refused before sign-in is not retried by socket.io: connect again with the new token
+    const stopWatching = onSessionChange((next) => {
+      if (next && !socket.connected) {
+        socket.disconnect();
+        socket.connect();
+      }
+    });
     return () => {
+      stopWatching();
       socket.off('connect', onConnect);
       socket.off('disconnect', lost);
       socket.off('connect_error', lost);
