@@ -1,4 +1,8 @@
-import { FORECAST_CAUTION, type ForecastRun, type ForecastUpdate } from '@stillwell/shared/forecasts';
+import {
+  FORECAST_CAUTION,
+  type ForecastRun,
+  type ForecastUpdate,
+} from '@stillwell/shared/forecasts';
 import { definition, SITE_NOW } from './fixtures';
 
 const H = 3600_000;
@@ -69,22 +73,67 @@ export function makeRun(overrides: Partial<ForecastRun> = {}): ForecastRun {
       membersAboveTable: 0,
     },
     thresholds: [
-      { id: 'watch', label: 'Watch level', kind: 'alert', elevation: 205.5, timeMs: SITE_NOW, leadS: 0, alreadyAbove: true, timeAboveS: 86_400, probability: 1 },
-      { id: 'normal-max', label: 'Normal maximum pool', kind: 'alert', elevation: 207, timeMs: SITE_NOW, leadS: 0, alreadyAbove: true, timeAboveS: 86_400, probability: 1 },
-      { id: 'aux-spillway', label: 'Auxiliary spillway crest', kind: 'auxiliary-spillway', elevation: 209, timeMs: SITE_NOW + 20 * H, leadS: 72_000, alreadyAbove: false, timeAboveS: 14_400, probability: 0.8 },
-      { id: 'freeboard-limit', label: 'Dam crest less freeboard', kind: 'crest-less-freeboard', elevation: 210.5, timeMs: null, leadS: null, alreadyAbove: false, timeAboveS: 0, probability: 0.1 },
+      {
+        id: 'watch',
+        label: 'Watch level',
+        kind: 'alert',
+        elevation: 205.5,
+        timeMs: SITE_NOW,
+        leadS: 0,
+        alreadyAbove: true,
+        timeAboveS: 86_400,
+        probability: 1,
+      },
+      {
+        id: 'normal-max',
+        label: 'Normal maximum pool',
+        kind: 'alert',
+        elevation: 207,
+        timeMs: SITE_NOW,
+        leadS: 0,
+        alreadyAbove: true,
+        timeAboveS: 86_400,
+        probability: 1,
+      },
+      {
+        id: 'aux-spillway',
+        label: 'Auxiliary spillway crest',
+        kind: 'auxiliary-spillway',
+        elevation: 209,
+        timeMs: SITE_NOW + 20 * H,
+        leadS: 72_000,
+        alreadyAbove: false,
+        timeAboveS: 14_400,
+        probability: 0.8,
+      },
+      {
+        id: 'freeboard-limit',
+        label: 'Dam crest less freeboard',
+        kind: 'crest-less-freeboard',
+        elevation: 210.5,
+        timeMs: null,
+        leadS: null,
+        alreadyAbove: false,
+        timeAboveS: 0,
+        probability: 0.1,
+      },
     ],
     timeLeft: {
       status: 'ok',
       target: 210.5,
       targetLabel: 'Dam crest less freeboard',
-      plan: { label: 'open all 3 spillway gates fully (9.00 m)', gates: ['gate-1', 'gate-2', 'gate-3'], opening: 9 },
+      plan: {
+        label: 'open all 3 spillway gates fully (9.00 m)',
+        gates: ['gate-1', 'gate-2', 'gate-3'],
+        opening: 9,
+      },
       latestStartMs: SITE_NOW + 2.5 * H,
       timeLeftS: 9000,
       peakAtLatest: 210.4,
       peakIfStartedNow: 208,
       peakWithoutPlan: 211,
-      message: 'open all 3 spillway gates fully (9.00 m) by 3 Mar, 16:30 GMT (2 h 30 min from now) to keep the peak at or below Dam crest less freeboard (210.50 m)',
+      message:
+        'open all 3 spillway gates fully (9.00 m) by 3 Mar, 16:30 GMT (2 h 30 min from now) to keep the peak at or below Dam crest less freeboard (210.50 m)',
     },
     holdNow: {
       status: 'ok',
@@ -94,7 +143,8 @@ export function makeRun(overrides: Partial<ForecastRun> = {}): ForecastRun {
       maxOpening: 9,
       peakElevation: 210.5,
       peakTimeMs: SITE_NOW + 20 * H,
-      message: 'opening every spillway gate to 3.60 m now keeps the peak at 210.50 m, within Dam crest less freeboard',
+      message:
+        'opening every spillway gate to 3.60 m now keeps the peak at 210.50 m, within Dam crest less freeboard',
     },
     notes: [],
     durationMs: 40,
@@ -103,6 +153,9 @@ export function makeRun(overrides: Partial<ForecastRun> = {}): ForecastRun {
   };
 }
 
-export function makeUpdate(run: ForecastRun | null = makeRun(), problem: string | null = null): ForecastUpdate {
+export function makeUpdate(
+  run: ForecastRun | null = makeRun(),
+  problem: string | null = null,
+): ForecastUpdate {
   return { reservoirId: definition.id, run, problem, caution: FORECAST_CAUTION };
 }

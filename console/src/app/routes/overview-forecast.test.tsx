@@ -87,10 +87,14 @@ describe('overview with the forecast', () => {
     const clock = await screen.findByTestId('time-left-clock');
     await waitFor(() => expect(clock.textContent).toBe('2:30:00'));
     // 10 wall seconds at 360x are an hour of site time
-    act(() => vi.setSystemTime(WALL0 + 10_000));
+    act(() => {
+      vi.setSystemTime(WALL0 + 10_000);
+    });
     await waitFor(() => expect(clock.textContent).toBe('1:30:00'));
     expect(screen.getByTestId('time-left').getAttribute('data-state')).toBe('soon');
-    act(() => vi.setSystemTime(WALL0 + 26_000));
+    act(() => {
+      vi.setSystemTime(WALL0 + 26_000);
+    });
     await waitFor(() =>
       expect(screen.getByTestId('time-left').getAttribute('data-state')).toBe('past'),
     );

@@ -30,7 +30,8 @@ function OverviewWithForecast({ definition }: { definition: ReservoirDefinition 
   // cut at the status clock, which moves once a push, not at the ticking one: a steady chart
   const statusNow = status.data?.clock.now ?? null;
   const band = useMemo(
-    () => (run && statusNow !== null ? forecastBand(run, system, statusNow, FORECAST_AHEAD_S) : null),
+    () =>
+      run && statusNow !== null ? forecastBand(run, system, statusNow, FORECAST_AHEAD_S) : null,
     [run, system, statusNow],
   );
   return (
