@@ -28,6 +28,7 @@ export const ACTIONS = [
   'alarms.read',
   'alarms.acknowledge',
   'alarms.shelve',
+  'limits.edit',
   'replay.read',
   'reports.create',
   'users.manage',
@@ -60,6 +61,8 @@ export const ACTION_DESCRIPTIONS: Readonly<Record<Action, string>> = {
   'alarms.read': 'see alarms',
   'alarms.acknowledge': 'acknowledge an alarm',
   'alarms.shelve': 'shelve an alarm',
+  'limits.edit':
+    'change alarm limits, instrument thresholds and baselines (a new definition version)',
   'replay.read': 'replay a past event',
   'reports.create': 'produce a report',
   'users.manage': 'create users, change roles, disable accounts, reset passwords',
