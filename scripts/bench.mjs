@@ -2,15 +2,20 @@
 // `npm run bench`: every benchmark of the repository, gathered into one table in docs/performance.md.
 // Each suite prints one JSON line { suite, results: [{ name, value, unit, target, ok, ratio? }] } with --json.
 import { execFileSync } from 'node:child_process';
-import { readFileSync, writeFileSync } from 'node:fs';
+import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { cpus, totalmem } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+// Every gateway/bench/*.ts is a suite of its own, so a new benchmark needs no line here.
+const gatewaySuites = readdirSync(join(root, 'gateway/bench'))
+  .filter((f) => f.endsWith('.ts') && !f.endsWith('.d.ts'))
+  .sort()
+  .map((f) => ({ cwd: 'gateway', args: ['--import', 'tsx', `bench/${f}`, '--json'] }));
 const SUITES = [
   { cwd: 'shared', args: ['--import', 'tsx', 'bench/run.ts', '--json'] },
-  { cwd: 'gateway', args: ['--import', 'tsx', 'bench/ingest.ts', '--json'] },
+  ...gatewaySuites,
 ];
 
 const rows = [];
