@@ -23,12 +23,18 @@ after(async () => {
   assert.equal(code, 0, `Ctrl-C should stop the product cleanly:\n${product?.output()}`);
 });
 
-/** Demo mode prints each account's password at start; sign in with it through the API. */
+/** Demo mode prints each account's password at start. */
+function passwordOf(role: string): string {
+  const password = new RegExp(`^\\s+${role}\\s+(\\S+)\\s`, 'm').exec(product.output())?.[1];
+  assert.ok(password, `no demo password for ${role} in the output`);
+  return password;
+}
+
+/** Signs in through the API with the demo password. */
 async function tokenOf(role: string): Promise<string> {
   const known = tokens.get(role);
   if (known) return known;
-  const password = new RegExp(`^\\s+${role}\\s+(\\S+)\\s`, 'm').exec(product.output())?.[1];
-  assert.ok(password, `no demo password for ${role} in the output`);
+  const password = passwordOf(role);
   const res = await fetch(`${product.url}/api/auth/sign-in`, {
     method: 'POST',
     headers: { 'Content-Type': 'application/json' },
@@ -65,16 +71,23 @@ async function until<T>(
 }
 
 /**
- * The console has no sign-in screen yet: the liaison's page sends the liaison's access token with
- * every request, as the console's API client will once sign-in lands.
+ * The liaison signs in once through the console's form; the session then lives in the browser's
+ * refresh cookie, and every page opened later resumes it.
  */
-async function pageAs(role: string): Promise<Page> {
+let signedIn = false;
+async function liaisonPage(path: string): Promise<Page> {
   const page = await browser.newPage();
-  await page.setExtraHTTPHeaders({ Authorization: `Bearer ${await tokenOf(role)}` });
+  await page.goto(`${product.url}${path}`);
+  if (!signedIn) {
+    await page.locator('input[autocomplete="username"]').fill('liaison');
+    await page.locator('input[type="password"]').fill(passwordOf('liaison'));
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    signedIn = true;
+  }
   return page;
 }
 
-test('a drafted order above a zone threshold is noticed, mailed, acknowledged, and then clear downstream', async () => {
+test('a drafted order above a zone threshold is noticed, mailed, acknowledged, and sent once the lead time has run', async () => {
   await until('a fresh pool reading', async () => {
     const status = await call<{ pool: unknown }>('operator', `/api/reservoirs/${RES}/status`);
     return status.pool ? true : undefined;
@@ -100,10 +113,17 @@ test('a drafted order above a zone threshold is noticed, mailed, acknowledged, a
     );
   const before = await clearance();
   assert.equal(before.clear, false);
+  type Checks = { results: Array<{ code: string; ok: boolean; message: string }> };
+  const downstreamCheck = async () =>
+    (await call<Checks>('operator', `/api/orders/${order.id}/interlocks`)).results.find(
+      (r) => r.code === 'downstream-clearance',
+    )!;
+  const refused = await downstreamCheck();
+  assert.equal(refused.ok, false);
+  assert.match(refused.message, /Quarry Road construction site has not been sent its notice/);
 
   // the notices board in the console: prepared by itself when the order was drafted
-  const board = await pageAs('liaison');
-  await board.goto(`${product.url}/reservoirs/${RES}/notices`);
+  const board = await liaisonPage(`/reservoirs/${RES}/notices`);
   const card = board.getByTestId(`notice-${QUARRY}`);
   await card.waitFor({ timeout: 30_000 });
   assert.equal(await card.getAttribute('data-state'), 'prepared');
@@ -128,8 +148,7 @@ test('a drafted order above a zone threshold is noticed, mailed, acknowledged, a
   });
 
   // the demo outbox shows what the demo mail server received
-  const outbox = await pageAs('liaison');
-  await outbox.goto(`${product.url}/reservoirs/${RES}/outbox`);
+  const outbox = await liaisonPage(`/reservoirs/${RES}/outbox`);
   const message = outbox
     .getByTestId('outbox-message')
     .filter({ hasText: 'juno.ashgrove@brackwell-civil.example' });
@@ -172,9 +191,22 @@ test('a drafted order above a zone threshold is noticed, mailed, acknowledged, a
     90_000,
   );
 
+  // now the order may go: the interlock says so, a duty engineer authorises, the operator sends it
+  // (the authorisation lasts 30 plant minutes, 3 wall seconds at 600x: no time lost in between)
+  assert.match((await downstreamCheck()).message, /^Downstream is clear/);
+  await call('engineer', '/api/auth/step-up', { password: passwordOf('engineer') });
+  await call('engineer', `/api/orders/${order.id}/authorise`, {
+    comment: 'downstream told and their lead time has run',
+  });
+  const sentOrder = await call<{ state: string }>(
+    'operator',
+    `/api/orders/${order.id}/execute`,
+    {},
+  );
+  assert.ok(['dispatched', 'travelling'].includes(sentOrder.state), sentOrder.state);
+
   // the registry the notices came from: zones nearest first, and the people to tell
-  const registry = await pageAs('liaison');
-  await registry.goto(`${product.url}/reservoirs/${RES}/downstream`);
+  const registry = await liaisonPage(`/reservoirs/${RES}/downstream`);
   await registry
     .getByRole('grid', { name: 'Contacts' })
     .getByText('Juno Ashgrove')

@@ -70,12 +70,20 @@ async function until<T>(
 }
 
 /**
- * The console has no sign-in screen yet: each page sends its person's access token with every
- * request, as the console's API client will once sign-in lands.
+ * Signs a person in through the console's own form, once per browser: the session then lives in
+ * that browser's refresh cookie, and every page opened later in it resumes the session.
  */
+const signedIn = new WeakMap<BrowserContext, string>();
 async function pageAs(browser: BrowserContext, role: string): Promise<Page> {
   const page = await browser.newPage();
-  await page.setExtraHTTPHeaders({ Authorization: `Bearer ${await tokenOf(role)}` });
+  if (signedIn.get(browser) === role) return page;
+  assert.equal(signedIn.get(browser), undefined, 'one person per browser');
+  await page.goto(`${product.url}${ORDERS}`);
+  await page.locator('input[autocomplete="username"]').fill(role);
+  await page.locator('input[type="password"]').fill(passwordOf(role));
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByTestId('connection-state').waitFor({ timeout: 30_000 });
+  signedIn.set(browser, role);
   return page;
 }
 
@@ -114,6 +122,15 @@ test('operator drafts, engineer authorises, operator sends, the gate moves, the 
   assert.equal(await detail.getAttribute('data-state'), 'proposed');
   // the operator is offered nothing that authorises
   assert.equal(await operator.getByTestId('order-authorise').count(), 0);
+  // a 1 m opening stays below every zone's threshold: downstream needs no notice (the notices
+  // test covers an order that does)
+  const checks = await api<{ results: Array<{ code: string; ok: boolean; message: string }> }>(
+    'operator',
+    `/api/orders/${id}/interlocks`,
+  );
+  const downstream = checks.results.find((r) => r.code === 'downstream-clearance');
+  assert.ok(downstream?.ok, JSON.stringify(downstream));
+  assert.match(downstream.message, /No downstream zone is affected/);
 
   // the duty engineer, in a browser of their own, reviews and authorises, confirming identity
   const engineer = await pageAs(engineerBrowser, 'engineer');
@@ -178,5 +195,23 @@ test('operator drafts, engineer authorises, operator sends, the gate moves, the 
     path: process.env.E2E_SCREENSHOT_ORDERS ?? '/tmp/stillwell-orders-logbook.png',
     fullPage: true,
   });
+
+  // the head on a sheet of its own, to print and keep; it shows the head as it is now
+  await logbook.getByTestId('logbook-head-sheet-link').click();
+  const sheet = logbook.getByTestId('logbook-head-sheet-hash');
+  await sheet.waitFor();
+  const printed = (await sheet.getAttribute('data-hash')) ?? '';
+  const printedSeq = Number(await logbook.getByTestId('logbook-head-seq').textContent());
+  assert.match(printed, /^[0-9a-f]{64}$/);
+  // whoever keeps the sheet can verify the chain against it
+  const verified = await api<{ ok: boolean }>(
+    'operator',
+    `/api/logbook/verify?headSeq=${printedSeq}&headHash=${printed}`,
+  );
+  assert.equal(verified.ok, true);
+  assert.equal((await sheet.textContent())?.replaceAll(' ', ''), printed);
+  await logbook.emulateMedia({ media: 'print' });
+  assert.equal(await logbook.getByTestId('head-sheet-print').isVisible(), false);
+  await logbook.screenshot({ path: '/tmp/stillwell-logbook-head-sheet.png' });
   await operator.screenshot({ path: '/tmp/stillwell-orders.png', fullPage: true });
 });

@@ -15,7 +15,10 @@ import { LogbookModule } from './logbook/logbook.module';
 import { MqttModule } from './mqtt/mqtt.module';
 import { NoticesModule } from './notices/notices.module';
 import { OrdersModule } from './orders/orders.module';
+import { ReplayModule } from './replay/replay.module';
+import { ReportsModule } from './reports/reports.module';
 import { ReservoirsModule } from './reservoirs/reservoirs.module';
+import { RetentionModule } from './retention/retention.module';
 import { TelemetryModule } from './telemetry/telemetry.module';
 
 /** The built console, served from the same origin when it exists. */
@@ -55,6 +58,9 @@ export class AppModule {
         ForecastsModule,
         AlarmsModule,
         InstrumentsModule,
+        RetentionModule,
+        ReplayModule,
+        ReportsModule,
         HealthModule,
         ...consoleModule(env.CONSOLE_DIST),
       ],

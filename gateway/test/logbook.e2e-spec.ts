@@ -1,4 +1,5 @@
 import Database from 'better-sqlite3';
+import { LogbookVerifier } from '../src/logbook/logbook-verifier.service';
 import { LogbookService } from '../src/logbook/logbook.service';
 import { startTestBroker, type TestBroker } from './support/broker';
 import { startTestGateway, type TestGateway } from './support/gateway';
@@ -71,6 +72,19 @@ describe('logbook: append-only, hash-chained, tamper found and located', () => {
     const report = await logbook.verify();
     expect(report.ok).toBe(false);
     expect(report.firstBad).toMatchObject({ seq: target, problem: 'hash-mismatch' });
+    // the head the verification stands on is the last good entry before it
+    expect(report.headSeq).toBe(target - 1);
+    expect(report.headHash).toMatch(/^[0-9a-f]{64}$/);
+    // the scheduled job (its handler called as the scheduler would) finds the same and keeps it for
+    // the console's chain panel
+    const verifier = gateway.app.get(LogbookVerifier);
+    await verifier.scheduled();
+    expect(verifier.last).toMatchObject({
+      ok: false,
+      headSeq: target - 1,
+      headHash: report.headHash,
+      firstBad: { seq: target, problem: 'hash-mismatch' },
+    });
     // a published head from before the edit still matches its own entry, but the chain below it does not
     const withHead = await logbook.verify({ seq: head.seq!, hash: head.hash! });
     expect(withHead.ok).toBe(false);
@@ -121,5 +135,42 @@ describe('logbook: a deletion in the middle of an intact chain', () => {
     const report = await logbook.verify();
     expect(report.firstBad).toMatchObject({ seq: seqs[2], problem: 'missing-entries' });
     expect(report.headSeq).toBe(seqs[0]);
+  });
+});
+
+describe('logbook: the last entry deleted', () => {
+  let broker: TestBroker;
+  let gateway: TestGateway;
+
+  beforeAll(async () => {
+    broker = await startTestBroker();
+    gateway = await startTestGateway({ MQTT_URL: broker.url });
+  });
+  afterAll(async () => {
+    await gateway?.close();
+    await broker?.stop();
+  });
+
+  it('is found against the published head that names it', async () => {
+    const logbook = gateway.app.get(LogbookService);
+    for (let i = 0; i < 3; i += 1)
+      await logbook.append({ kind: 'test.entry', actor: null, payload: { i } });
+    const published = await logbook.head();
+    const db = new Database(gateway.databasePath);
+    try {
+      db.exec('DROP TRIGGER logbook_no_delete');
+      db.prepare('DELETE FROM logbook_entries WHERE seq = ?').run(published.seq);
+    } finally {
+      db.close();
+    }
+    // the shortened chain is consistent in itself: only the published head can show the loss
+    expect((await logbook.verify()).ok).toBe(true);
+    const report = await logbook.verify({ seq: published.seq!, hash: published.hash! });
+    expect(report).toMatchObject({
+      ok: false,
+      headSeq: published.seq! - 1,
+      firstBad: { seq: published.seq, problem: 'head-mismatch' },
+    });
+    expect(report.firstBad!.detail).toMatch(/is no longer in the logbook/);
   });
 });

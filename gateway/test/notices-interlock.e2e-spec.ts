@@ -1,9 +1,7 @@
 import type { Notice } from '@stillwell/shared/notices';
 import type { Order } from '@stillwell/shared/orders';
 import { ClearanceService } from '../src/notices/clearance.service';
-import { OrderClearance } from '../src/notices/orders/order-clearance';
 import { OrderNoticesListener } from '../src/notices/orders/order-notices.listener';
-import { DOWNSTREAM_CLEARANCE } from '../src/orders/downstream-clearance';
 import { signInAs, type SignedInUser } from './support/auth';
 import { eventually } from './support/gateway';
 import { entries } from './support/notices';
@@ -12,8 +10,8 @@ import { api, draft, oneGate, RES, startOrdersWorld, type OrdersWorld } from './
 const HOUR = 3_600_000;
 
 /**
- * The lead-time interlock for real: DOWNSTREAM_CLEARANCE bound to the notices module's check as
- * the orders module is to bind it, real orders drafted and executed over a real broker, the site
+ * The lead-time interlock for real: DOWNSTREAM_CLEARANCE as the orders module binds it (the notices
+ * module's check), real orders drafted and executed over a real broker, the site
  * clock moved by hand.
  */
 describe('downstream clearance of gate orders', () => {
@@ -33,15 +31,11 @@ describe('downstream clearance of gate orders', () => {
   };
 
   beforeAll(async () => {
-    world = await startOrdersWorld(
-      { NOTICE_TICK_MS: '0', DEMO_SMTP_PORT: '0', ORDER_AUTHORISATION_TTL_MIN: '600' },
-      {
-        override: (b) =>
-          b
-            .overrideProvider(DOWNSTREAM_CLEARANCE)
-            .useFactory({ factory: (c: OrderClearance) => c, inject: [OrderClearance] }),
-      },
-    );
+    world = await startOrdersWorld({
+      NOTICE_TICK_MS: '0',
+      DEMO_SMTP_PORT: '0',
+      ORDER_AUTHORISATION_TTL_MIN: '600',
+    });
     liaison = await signInAs(world.gateway, 'liaison');
   });
   afterAll(() => world?.close());

@@ -221,4 +221,38 @@ describe('downstream notices by mail', () => {
     await api(rig.gateway, operator).get(`/api/reservoirs/${RESERVOIR}/contacts`).expect(403);
     await api(rig.gateway, operator).get(`/api/reservoirs/${RESERVOIR}/notices`).expect(200);
   });
+
+  it('lets the liaison and the duty engineer send a notice, never the operator (notices.send)', async () => {
+    const notices = await prepare(rig, 'order-who-sends', 800);
+    const [first, second] = notices.filter((n) => n.state === 'prepared');
+    expect(first && second).toBeTruthy();
+    const operator = await signInAs(rig.gateway, 'operator');
+    const refused = await api(rig.gateway, operator)
+      .post(`/api/notices/${first!.id}/send`)
+      .expect(403);
+    expect(refused.body.code).toBe('forbidden');
+    // and the operator does not prepare or reword them either (notices.manage)
+    await api(rig.gateway, operator)
+      .post(`/api/reservoirs/${RESERVOIR}/notices/prepare`, {
+        orderId: 'order-by-operator',
+        targetReleaseM3s: 800,
+        currentReleaseM3s: 40,
+        plannedStartAt: null,
+        durationS: null,
+      })
+      .expect(403);
+    const engineer = await signInAs(rig.gateway, 'engineer');
+    const sent = (
+      await api(rig.gateway, engineer).post(`/api/notices/${first!.id}/send`).expect(200)
+    ).body as Notice;
+    expect(sent.state).toBe('sent');
+    const byLiaison = (
+      await api(rig.gateway, rig.liaison).post(`/api/notices/${second!.id}/send`).expect(200)
+    ).body as Notice;
+    expect(byLiaison.state).toBe('sent');
+    const sentEntries = (await entries(rig.gateway, 'notice.sent')).filter((e) =>
+      [first!.id, second!.id].includes(e.payload.noticeId as string),
+    );
+    expect(sentEntries.map((e) => e.actorName).sort()).toEqual(['engineer', 'liaison']);
+  });
 });

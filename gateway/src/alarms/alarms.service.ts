@@ -20,6 +20,7 @@ import {
 import type { Quality } from '@stillwell/shared/telemetry';
 import { SiteClockService } from '../clock/site-clock.service';
 import { ForecastsService } from '../forecasts/forecasts.service';
+import { LeaseService } from '../database/lease.service';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { IngestionService } from '../telemetry/ingestion.service';
 import { AlarmStore } from './alarm-store.service';
@@ -79,6 +80,7 @@ export class AlarmsService implements OnApplicationBootstrap, OnModuleDestroy {
     private readonly scheduler: SchedulerRegistry,
     private readonly forecastService: ForecastsService,
     @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly lease: LeaseService,
   ) {}
 
   async onApplicationBootstrap(): Promise<void> {
@@ -94,7 +96,8 @@ export class AlarmsService implements OnApplicationBootstrap, OnModuleDestroy {
         if (!w) return;
         w.lastBatchWall = Date.now();
         w.engine.ingest(readings.map((r) => ({ channel: r.channel, t: r.t, v: r.v, q: r.q })));
-        this.evaluate(reservoirId);
+        // every gateway keeps its engines fed; the one holding the alarm tick judges
+        if (this.lease.holds('alarm-tick')) this.evaluate(reservoirId);
       }),
       this.reservoirs.changed$.subscribe(({ reservoirId }) => void this.watch(reservoirId)),
       this.forecastService.updates$.subscribe(({ reservoirId, run }) =>
@@ -155,6 +158,7 @@ export class AlarmsService implements OnApplicationBootstrap, OnModuleDestroy {
 
   /** One round of the periodic checks; the interval calls it, and tests may. */
   async tick(): Promise<void> {
+    if (!(await this.lease.acquire('alarm-tick'))) return;
     await this.readQuarantine();
     for (const reservoirId of this.watched.keys()) {
       const w = this.watched.get(reservoirId)!;

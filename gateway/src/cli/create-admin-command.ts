@@ -1,10 +1,24 @@
 import { Logger } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
-import { usernameSchema } from '@stillwell/shared/access';
+import {
+  minPasswordLength,
+  passwordProblemSchema,
+  PASSWORD_PROBLEM_MESSAGES,
+  usernameSchema,
+} from '@stillwell/shared/access';
 import { AccessError } from '../common/errors/access-error';
 import { validateEnv } from '../config';
 import { UsersService } from '../users/users.service';
 import { setupEnv, SetupModule } from './setup.module';
+
+/** A broken password rule in the words the console uses too. */
+function inWords(problem: string): string {
+  const known = passwordProblemSchema.safeParse(problem);
+  if (!known.success) return problem;
+  return known.data === 'too-short'
+    ? `at least ${minPasswordLength(['admin'])} characters`
+    : PASSWORD_PROBLEM_MESSAGES[known.data];
+}
 
 export interface CreateAdminInput {
   username: string;
@@ -36,7 +50,7 @@ export async function createAdmin(input: CreateAdminInput): Promise<string> {
     if (error instanceof AccessError) {
       const body = error.getResponse() as { message: string; problems?: string[] };
       throw new Error(
-        body.problems ? `${body.message}: ${body.problems.join(', ')}` : body.message,
+        body.problems ? `${body.message}: ${body.problems.map(inWords).join('; ')}` : body.message,
         { cause: error },
       );
     }

@@ -3,9 +3,15 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
 import type { Env } from '../config';
+import {
+  answerBodyErrors,
+  BODY_LIMIT_BYTES,
+  refuseUnknownBodyTypes,
+  verifyJson,
+} from './body-guards';
 
 /**
- * Headers, CORS and body limits. The CSP allows only this origin: no inline or foreign scripts.
+ * Headers, CORS and body limits (see body-guards.ts). The CSP allows only this origin: no inline or foreign scripts.
  * style-src needs 'unsafe-inline' because MUI's emotion injects <style> tags at run time (a nonce
  * would need the HTML rendered per request, and the console is served as static files).
  */
@@ -15,8 +21,11 @@ export function hardenHttp(app: INestApplication, env: Env): void {
     const n = Number(env.TRUST_PROXY);
     express.set('trust proxy', Number.isInteger(n) ? n : env.TRUST_PROXY);
   }
-  express.useBodyParser('json', { limit: '1mb' });
-  express.useBodyParser('urlencoded', { limit: '1mb', extended: false });
+  // unknown body types refused first; JSON depth checked on the raw bytes before it is parsed
+  express.use(refuseUnknownBodyTypes);
+  express.useBodyParser('json', { limit: BODY_LIMIT_BYTES, verify: verifyJson });
+  express.useBodyParser('urlencoded', { limit: BODY_LIMIT_BYTES, extended: false });
+  express.use(answerBodyErrors);
   express.use(cookieParser());
   express.use(
     helmet({

@@ -3,6 +3,7 @@ import { SchedulerRegistry } from '@nestjs/schedule';
 import type { Subscription } from 'rxjs';
 import type { ForecastTrigger } from '@stillwell/shared/forecasts';
 import { SiteClockService } from '../clock/site-clock.service';
+import { LeaseService } from '../database/lease.service';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { IngestionService } from '../telemetry/ingestion.service';
 import { ForecastInputsService } from './forecast-inputs.service';
@@ -41,6 +42,7 @@ export class ForecastScheduler implements OnApplicationBootstrap, OnModuleDestro
     private readonly ingestion: IngestionService,
     private readonly clock: SiteClockService,
     private readonly scheduler: SchedulerRegistry,
+    private readonly lease: LeaseService,
   ) {}
 
   onApplicationBootstrap(): void {
@@ -73,6 +75,8 @@ export class ForecastScheduler implements OnApplicationBootstrap, OnModuleDestro
    * site minute (a run can come up to one tick late within its minute).
    */
   async tick(): Promise<void> {
+    // one gateway runs the forecasts for all
+    if (!(await this.lease.acquire('forecast-tick'))) return;
     const every = this.forecasts.settings.everySiteMs;
     for (const { id } of this.reservoirs.list()) {
       if (this.forecasts.busy(id)) continue;
@@ -91,7 +95,7 @@ export class ForecastScheduler implements OnApplicationBootstrap, OnModuleDestro
 
   /** A stored batch for a reservoir: is it a material change from what the last run assumed? */
   onStored(reservoirId: string): void {
-    if (this.pending.has(reservoirId)) return;
+    if (this.pending.has(reservoirId) || !this.lease.holds('forecast-tick')) return;
     const loaded = this.reservoirs.find(reservoirId);
     if (!loaded) return;
     const last = this.forecasts.latestCached(reservoirId);

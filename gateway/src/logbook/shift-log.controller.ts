@@ -46,6 +46,9 @@ class UploadLimitFilter implements ExceptionFilter {
 const upload = FilesInterceptor('attachments', ATTACHMENT_LIMITS.maxFiles, {
   storage: memoryStorage(),
   limits: { fileSize: ATTACHMENT_LIMITS.maxBytes, files: ATTACHMENT_LIMITS.maxFiles, fields: 10 },
+  // the raw name is kept and made safe by safeAttachmentName: busboy's own basename turns '..' into
+  // '', and multer then drops the file without a word
+  preservePath: true,
 });
 
 const form = (

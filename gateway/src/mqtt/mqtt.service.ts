@@ -2,12 +2,15 @@ import { Injectable, Logger, OnModuleDestroy, OnModuleInit } from '@nestjs/commo
 import { ConfigService } from '@nestjs/config';
 import { connect, type MqttClient } from 'mqtt';
 import type { Env } from '../config';
+import { subscriptionFilter } from './shared-subscription';
 import { topicMatches } from './topic-filter';
 
 export type MqttHandler = (topic: string, payload: Buffer) => void;
 
 /**
- * The gateway's one connection to the broker. Standard MQTT 3.1.1 only, so any broker will do.
+ * The gateway's one connection to the broker. Standard MQTT 3.1.1, so any broker will do; with
+ * MQTT_SHARED_GROUP set, MQTT 5 and shared subscriptions so that several gateways split the
+ * readings (the bundled aedes speaks 3.1.1 only: leave the group unset with it).
  * A persistent session (clean off) and QoS 1 keep messages queued at the broker while we are away;
  * subscriptions are renewed on every connect because a broker that lost the session won't keep them.
  */
@@ -16,8 +19,11 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger(MqttService.name);
   private client?: MqttClient;
   private readonly handlers: Array<{ filter: string; handler: MqttHandler }> = [];
+  private readonly group: string | undefined;
 
-  constructor(private readonly config: ConfigService<Env, true>) {}
+  constructor(private readonly config: ConfigService<Env, true>) {
+    this.group = config.get('MQTT_SHARED_GROUP', { infer: true });
+  }
 
   onModuleInit(): void {
     const url = this.config.get('MQTT_URL', { infer: true });
@@ -25,7 +31,10 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
       clientId: this.config.get('MQTT_CLIENT_ID', { infer: true }),
       username: this.config.get('MQTT_USERNAME', { infer: true }),
       password: this.config.get('MQTT_PASSWORD', { infer: true }),
-      protocolVersion: 4,
+      ...(this.group
+        ? // MQTT 5 ends a session at disconnect unless told otherwise: keep it a day
+          { protocolVersion: 5 as const, properties: { sessionExpiryInterval: 86_400 } }
+        : { protocolVersion: 4 as const }),
       clean: false,
       reconnectPeriod: 1000,
       connectTimeout: 5000,
@@ -50,7 +59,8 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
   /** Registers a handler; the subscription is made now if connected and again on every reconnect. */
   subscribe(filter: string, handler: MqttHandler): void {
     this.handlers.push({ filter, handler });
-    if (this.client?.connected) this.client.subscribe(filter, { qos: 1 });
+    if (this.client?.connected)
+      this.client.subscribe(subscriptionFilter(filter, this.group), { qos: 1 });
   }
 
   async publish(topic: string, payload: string, retain = false): Promise<void> {
@@ -59,7 +69,9 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
   }
 
   private resubscribe(): void {
-    const filters = [...new Set(this.handlers.map((h) => h.filter))];
+    const filters = [
+      ...new Set(this.handlers.map((h) => subscriptionFilter(h.filter, this.group))),
+    ];
     if (filters.length) this.client?.subscribe(filters, { qos: 1 });
   }
 

@@ -1,10 +1,17 @@
 import { randomUUID } from 'node:crypto';
-import { Injectable, Logger, OnApplicationBootstrap, OnModuleDestroy } from '@nestjs/common';
+import {
+  Injectable,
+  Logger,
+  OnApplicationBootstrap,
+  OnModuleDestroy,
+  Optional,
+} from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, In, IsNull } from 'typeorm';
 import type { Env } from '../config';
 import { SiteClockService } from '../clock/site-clock.service';
+import { LeaseService } from '../database/lease.service';
 import { WriteQueueService } from '../database/write-queue.service';
 import { LogbookService } from '../logbook/logbook.service';
 import { ContactRow } from './contact.entity';
@@ -41,15 +48,19 @@ export class EscalationService implements OnApplicationBootstrap, OnModuleDestro
     private readonly clock: SiteClockService,
     private readonly dispatch: DispatchService,
     private readonly config: ConfigService<Env, true>,
+    @Optional() private readonly lease?: LeaseService,
   ) {}
 
   onApplicationBootstrap(): void {
     const every = this.config.get('NOTICE_TICK_MS', { infer: true });
     if (every > 0) {
       this.timer = setInterval(() => {
-        this.tick().catch((error: unknown) =>
-          this.logger.error(`escalation check failed: ${String(error)}`),
-        );
+        // one gateway escalates for all
+        (this.lease?.acquire('notice-escalation') ?? Promise.resolve(true))
+          .then((mine) => (mine ? this.tick() : 0))
+          .catch((error: unknown) =>
+            this.logger.error(`escalation check failed: ${String(error)}`),
+          );
       }, every);
       this.timer.unref();
     }

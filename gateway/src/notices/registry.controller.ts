@@ -17,7 +17,10 @@ import { Permission } from '../common/decorators/permission.decorator';
 import { RegistryService } from './registry.service';
 import { ZodBody } from './zod-body.pipe';
 
-/** The downstream registry: zones (the definition's, so reservoir.edit) and contacts (the liaison's). */
+/**
+ * The downstream registry: zones with their travel-time tables (entered by the duty engineer, kept
+ * with the liaison: notices.manage) and contacts (the liaison's: contacts.manage).
+ */
 @ApiTags('downstream')
 @Controller('reservoirs/:reservoirId')
 export class RegistryController {
@@ -31,7 +34,7 @@ export class RegistryController {
   }
 
   @Post('zones')
-  @Permission('reservoir.edit')
+  @Permission('notices.manage')
   @ApiOkResponse({ description: 'The new zone (body: ZoneInput)' })
   addZone(
     @Param('reservoirId') reservoirId: string,
@@ -42,7 +45,7 @@ export class RegistryController {
   }
 
   @Put('zones/:zoneId')
-  @Permission('reservoir.edit')
+  @Permission('notices.manage')
   @ApiOkResponse({ description: 'The zone as changed (body: ZoneInput)' })
   editZone(
     @Param('reservoirId') reservoirId: string,

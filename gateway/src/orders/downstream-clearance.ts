@@ -1,4 +1,3 @@
-import { Injectable } from '@nestjs/common';
 import type { Order } from '@stillwell/shared/orders';
 
 /**
@@ -12,15 +11,4 @@ export type ClearanceResult = { ok: true; note: string } | { ok: false; reason: 
 
 export interface DownstreamClearance {
   check(order: Order, step: number): ClearanceResult | Promise<ClearanceResult>;
-}
-
-/** Until the notices module exists: allows, and says so in every execution record. */
-@Injectable()
-export class NoNoticeRegistryYet implements DownstreamClearance {
-  check(): ClearanceResult {
-    return {
-      ok: true,
-      note: 'no downstream notice registry yet: downstream clearance not checked',
-    };
-  }
 }

@@ -8,6 +8,7 @@ import {
 import type { Subscription } from 'rxjs';
 import { controlsOf } from '@stillwell/shared/orders';
 import { ACK_SUBSCRIPTION } from '@stillwell/shared/telemetry';
+import { LeaseService } from '../database/lease.service';
 import { MqttService } from '../mqtt/mqtt.service';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { ActuatorPositions } from './actuator-positions.service';
@@ -39,6 +40,7 @@ export class OrderTicker implements OnApplicationBootstrap, OnModuleDestroy {
     private readonly acks: OrderAcks,
     private readonly progress: OrderProgress,
     @Inject(ORDER_SETTINGS) private readonly settings: OrderSettings,
+    private readonly lease: LeaseService,
   ) {}
 
   onApplicationBootstrap(): void {
@@ -51,7 +53,8 @@ export class OrderTicker implements OnApplicationBootstrap, OnModuleDestroy {
     }
     this.mqtt.subscribe(ACK_SUBSCRIPTION, (_topic, payload) => {
       // the broker connection outlives this module at shutdown: later acks find no database
-      if (this.closed) return;
+      // with several gateways, the one holding the sweep drives the orders
+      if (this.closed || !this.lease.holds('order-sweep')) return;
       this.acks.onAck(payload).catch((e: unknown) => this.fail('acknowledgement', e));
     });
     this.subscription = this.positions.updated$.subscribe(() => this.positionsChanged());
@@ -69,6 +72,7 @@ export class OrderTicker implements OnApplicationBootstrap, OnModuleDestroy {
 
   /** One pass over everything time-driven. */
   async sweep(wallNow = Date.now()): Promise<void> {
+    if (!(await this.lease.acquire('order-sweep'))) return;
     try {
       await this.acks.checkAckDeadlines(wallNow);
       await this.progress.checkPositions();
@@ -81,6 +85,7 @@ export class OrderTicker implements OnApplicationBootstrap, OnModuleDestroy {
 
   /** Coalesced: position reports arrive in bursts, one check at a time is enough. */
   private positionsChanged(): void {
+    if (!this.lease.holds('order-sweep')) return;
     if (this.checking) {
       this.again = true;
       return;

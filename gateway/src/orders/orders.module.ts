@@ -6,7 +6,8 @@ import { TelemetryModule } from '../telemetry/telemetry.module';
 import { ActuatorPositions } from './actuator-positions.service';
 import { AutomaticRuleRow, AutomationEventRow } from './automatic-rule.entity';
 import { AutomationService } from './automation.service';
-import { DOWNSTREAM_CLEARANCE, NoNoticeRegistryYet } from './downstream-clearance';
+import { OrderClearance } from '../notices/orders/order-clearance';
+import { DOWNSTREAM_CLEARANCE } from './downstream-clearance';
 import { EmergencyController } from './emergency.controller';
 import { EmergencyRow } from './emergency.entity';
 import { EmergencyService } from './emergency.service';
@@ -47,7 +48,7 @@ import { OrdersService } from './orders.service';
   controllers: [OrdersController, EmergencyController],
   providers: [
     { provide: ORDER_SETTINGS, inject: [ConfigService], useFactory: readOrderSettings },
-    { provide: DOWNSTREAM_CLEARANCE, useClass: NoNoticeRegistryYet },
+    { provide: DOWNSTREAM_CLEARANCE, useExisting: OrderClearance },
     { provide: ORDER_ALARM_SINK, useClass: LogOnlyAlarmSink },
     OrderEvents,
     OrderStore,

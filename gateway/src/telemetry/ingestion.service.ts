@@ -60,6 +60,7 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
   private readonly batchSize: number;
   private readonly flushMs: number;
   private readonly maxFutureS: number;
+  private readonly maxPayloadBytes: number;
   private readonly inserter: ReadingInserter;
   readonly stored$ = new Subject<StoredBatch>();
   readonly counters: IngestionCounters = {
@@ -84,6 +85,7 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
     this.batchSize = config.get('INGEST_BATCH_SIZE', { infer: true });
     this.flushMs = config.get('INGEST_FLUSH_MS', { infer: true });
     this.maxFutureS = config.get('TELEMETRY_MAX_FUTURE_S', { infer: true });
+    this.maxPayloadBytes = config.get('MQTT_MAX_PAYLOAD_BYTES', { infer: true });
     this.inserter = new ReadingInserter(readingRepo.manager.connection.driver);
   }
 
@@ -108,7 +110,9 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
   receive(topic: string, payload: Buffer): void {
     this.counters.received += 1;
     const receivedAt = Date.now();
-    const text = payload.toString('utf8');
+    // an oversized message is not decoded whole: its head is kept, the rest is refused unread
+    const oversized = payload.length > this.maxPayloadBytes;
+    const text = (oversized ? payload.subarray(0, PAYLOAD_KEEP_BYTES) : payload).toString('utf8');
     const parsed = parseTopic(topic);
     if (!parsed || parsed.kind !== 'telemetry' || !parsed.deviceId) {
       return this.reject(
@@ -128,6 +132,17 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
         null,
         'unknown-reservoir',
         `no reservoir "${parsed.reservoirId}"`,
+        text,
+        payload.length,
+        receivedAt,
+      );
+    }
+    if (oversized) {
+      return this.reject(
+        topic,
+        parsed.reservoirId,
+        'bad-shape',
+        `payload of ${payload.length} bytes is over the limit of ${this.maxPayloadBytes} bytes (MQTT_MAX_PAYLOAD_BYTES)`,
         text,
         payload.length,
         receivedAt,

@@ -9,7 +9,7 @@ import {
 } from '@stillwell/shared/orders';
 import { LIVE_NAMESPACE } from '@stillwell/shared/telemetry';
 import { LogbookQueryService } from '../../src/logbook/logbook-query.service';
-import { stepUp } from '../support/auth';
+import { signInAs, stepUp } from '../support/auth';
 import { eventually } from '../support/gateway';
 import { api, draft, entriesOf, oneGate, RES, startOrdersWorld, type OrdersWorld } from './setup';
 
@@ -254,9 +254,7 @@ describe('automatic rules and the live feeds', () => {
   });
 
   it('refuses the logbook feed to a role without logbook.read', async () => {
-    const stakeholder = await import('../support/auth').then((m) =>
-      m.signInAs(world.gateway, 'stakeholder'),
-    );
+    const stakeholder = await signInAs(world.gateway, 'stakeholder');
     const s = io(`${world.gateway.url}${LIVE_NAMESPACE}`, {
       transports: ['websocket'],
       auth: { token: stakeholder.token },

@@ -2,7 +2,6 @@ import request from 'supertest';
 import type { Role } from '@stillwell/shared/access';
 import type { CreateOrderRequest, Order } from '@stillwell/shared/orders';
 import { LogbookQueryService } from '../../src/logbook/logbook-query.service';
-import { DOWNSTREAM_CLEARANCE, NoNoticeRegistryYet } from '../../src/orders/downstream-clearance';
 import { OrderTicker } from '../../src/orders/order-ticker.service';
 import { UsersService } from '../../src/users/users.service';
 import { ACCESS_TEST_ENV, signIn, signInAs, stepUp, type SignedInUser } from '../support/auth';
@@ -63,11 +62,7 @@ export async function startOrdersWorld(
       FORECAST_TICK_MS: '0',
       ...env,
     },
-    {
-      // these tests are about orders: downstream clearance allows unless a test brings its own
-      override: (b) => b.overrideProvider(DOWNSTREAM_CLEARANCE).useClass(NoNoticeRegistryYet),
-      ...imports,
-    },
+    imports,
   );
   const field = await TestField.start(gateway, broker.url);
   const users = {

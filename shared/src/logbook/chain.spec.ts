@@ -9,9 +9,11 @@ import {
   type LogbookEntryRecord,
 } from './chain.js';
 
-// RFC 8785 (JSON Canonicalization Scheme), examples recalled from memory of the RFC text: the
-// main example of section 3.2.3, the property-sorting example of section 3.2.3 and number
-// serialisations from Appendix B. They pass against the library, which they would not by chance.
+// RFC 8785 (JSON Canonicalization Scheme). The main example (sections 3.2.2 to 3.2.4) and its
+// UTF-8 output in hexadecimal were read from a faithful reproduction of the RFC (the gowebpki/jcs
+// README); the property-sorting example (section 3.2.3) and the number serialisations of
+// Appendix B are recalled from memory of the RFC text, unconfirmed. They pass against the library,
+// which they would not by chance.
 describe('canonical JSON after RFC 8785', () => {
   it('reproduces the RFC main example (section 3.2.3)', () => {
     const input = JSON.parse(
@@ -23,6 +25,20 @@ describe('canonical JSON after RFC 8785', () => {
       '{"literals":[null,true,false],"numbers":[333333333.3333333,1e+30,4.5,0.002,1e-27],' +
         '"string":"€$\\u000f\\nA\'B\\"\\\\\\\\\\"/"}',
     );
+  });
+  it('gives the RFC main example as the exact UTF-8 bytes of section 3.2.4', () => {
+    const input = JSON.parse(
+      '{"numbers": [333333333.33333329, 1E30, 4.50, 2e-3, 0.000000000000000000000000001],' +
+        '"string": "\\u20ac$\\u000F\\u000aA\'\\u0042\\u0022\\u005c\\\\\\"\\/",' +
+        '"literals": [null, true, false]}',
+    );
+    const rfcHex =
+      '7b 22 6c 69 74 65 72 61 6c 73 22 3a 5b 6e 75 6c 6c 2c 74 72 75 65 2c 66 61 6c 73 65 5d 2c 22 6e ' +
+      '75 6d 62 65 72 73 22 3a 5b 33 33 33 33 33 33 33 33 33 2e 33 33 33 33 33 33 33 2c 31 65 2b 33 30 ' +
+      '2c 34 2e 35 2c 30 2e 30 30 32 2c 31 65 2d 32 37 5d 2c 22 73 74 72 69 6e 67 22 3a 22 e2 82 ac 24 ' +
+      '5c 75 30 30 30 66 5c 6e 41 27 42 5c 22 5c 5c 5c 5c 5c 22 2f 22 7d';
+    const bytes = [...new TextEncoder().encode(canonicalize(input))];
+    expect(bytes.map((b) => b.toString(16).padStart(2, '0')).join(' ')).toBe(rfcHex);
   });
   it('sorts properties by UTF-16 code units (section 3.2.3)', () => {
     const input = JSON.parse(

@@ -21,6 +21,7 @@ describe('downstream clearance', () => {
       clear: true,
       shortfalls: [],
       clearAt: T0,
+      summary: expect.stringMatching(/^No downstream zone is affected/),
     });
   });
 

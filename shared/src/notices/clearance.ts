@@ -148,7 +148,9 @@ export function assessClearance(
     checkedAt: now,
     clearAt,
     shortfalls,
-    summary: summarise(shortfalls, order.emergency, clearAt),
+    summary: zones.length
+      ? summarise(shortfalls, order.emergency, clearAt)
+      : 'No downstream zone is affected by this release: no notice is needed.',
   };
 }
 

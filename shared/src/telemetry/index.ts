@@ -1,4 +1,5 @@
 export * from './api.js';
+export * from './backfill.js';
 export * from './message.js';
 export * from './downsample.js';
 export * from './series.js';

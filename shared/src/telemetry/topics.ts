@@ -5,6 +5,8 @@
  *   stillwell/v1/{reservoirId}/command/{deviceId}     gateway -> device, QoS 1
  *   stillwell/v1/{reservoirId}/ack/{deviceId}         device -> gateway, QoS 1
  *   stillwell/v1/{reservoirId}/clock                  simulator -> gateway, retained
+ *   stillwell/v1/{reservoirId}/backfill/{deviceId}    gateway -> device, QoS 1 (resend a seq range)
+ *   stillwell/v1/{reservoirId}/backfill-reply/{deviceId}  device -> gateway, QoS 1
  */
 export const TOPIC_ROOT = 'stillwell/v1';
 
@@ -35,6 +37,15 @@ export function ackTopic(reservoirId: string, deviceId: string): string {
   return `${TOPIC_ROOT}/${segment(reservoirId, 'reservoir id')}/ack/${segment(deviceId, 'device id')}`;
 }
 
+/** Where the gateway asks a device to resend readings it missed (backfill.ts). */
+export function backfillTopic(reservoirId: string, deviceId: string): string {
+  return `${TOPIC_ROOT}/${segment(reservoirId, 'reservoir id')}/backfill/${segment(deviceId, 'device id')}`;
+}
+
+export function backfillReplyTopic(reservoirId: string, deviceId: string): string {
+  return `${TOPIC_ROOT}/${segment(reservoirId, 'reservoir id')}/backfill-reply/${segment(deviceId, 'device id')}`;
+}
+
 export function clockTopic(reservoirId: string): string {
   return `${TOPIC_ROOT}/${segment(reservoirId, 'reservoir id')}/clock`;
 }
@@ -43,8 +54,16 @@ export function clockTopic(reservoirId: string): string {
 export const TELEMETRY_SUBSCRIPTION = `${TOPIC_ROOT}/+/telemetry/+`;
 export const ACK_SUBSCRIPTION = `${TOPIC_ROOT}/+/ack/+`;
 export const CLOCK_SUBSCRIPTION = `${TOPIC_ROOT}/+/clock`;
+export const BACKFILL_REPLY_SUBSCRIPTION = `${TOPIC_ROOT}/+/backfill-reply/+`;
 
-export type TopicKind = 'telemetry' | 'command' | 'ack' | 'clock';
+export type TopicKind = 'telemetry' | 'command' | 'ack' | 'clock' | 'backfill' | 'backfill-reply';
+const DEVICE_KINDS: readonly string[] = [
+  'telemetry',
+  'command',
+  'ack',
+  'backfill',
+  'backfill-reply',
+];
 
 export interface ParsedTopic {
   kind: TopicKind;
@@ -60,10 +79,10 @@ export function parseTopic(topic: string): ParsedTopic | null {
   const kind = parts[3];
   if (!reservoirId || !isTopicSegment(reservoirId)) return null;
   if (kind === 'clock' && parts.length === 4) return { kind, reservoirId };
-  if ((kind === 'telemetry' || kind === 'command' || kind === 'ack') && parts.length === 5) {
+  if (kind && DEVICE_KINDS.includes(kind) && parts.length === 5) {
     const deviceId = parts[4];
     if (!deviceId || !isTopicSegment(deviceId)) return null;
-    return { kind, reservoirId, deviceId };
+    return { kind: kind as TopicKind, reservoirId, deviceId };
   }
   return null;
 }

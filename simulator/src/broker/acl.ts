@@ -14,17 +14,23 @@ export const ACL_RULES = {
       'stillwell/v1/{r}/telemetry/{d}',
       'stillwell/v1/{r}/ack/{d}',
       'stillwell/v1/{r}/rule-events/{d}',
+      'stillwell/v1/{r}/backfill-reply/{d}',
     ],
-    subscribe: ['stillwell/v1/{r}/command/{d}', 'stillwell/v1/{r}/rules/{d}'],
+    subscribe: [
+      'stillwell/v1/{r}/command/{d}',
+      'stillwell/v1/{r}/rules/{d}',
+      'stillwell/v1/{r}/backfill/{d}',
+    ],
   },
   clock: { publish: ['stillwell/v1/{r}/clock'], subscribe: [] },
   gateway: {
-    publish: ['stillwell/v1/+/command/+', 'stillwell/v1/+/rules/+'],
+    publish: ['stillwell/v1/+/command/+', 'stillwell/v1/+/rules/+', 'stillwell/v1/+/backfill/+'],
     subscribe: [
       'stillwell/v1/+/telemetry/+',
       'stillwell/v1/+/ack/+',
       'stillwell/v1/+/clock',
       'stillwell/v1/+/rule-events/+',
+      'stillwell/v1/+/backfill-reply/+',
     ],
   },
 } as const satisfies Record<

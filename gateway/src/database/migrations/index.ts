@@ -5,6 +5,8 @@ import { Access1764720000000 } from './1764720000000-access';
 import { Notices1764650000000 } from './1764650000000-notices';
 import { Forecasts1764806400000 } from './1764806400000-forecasts';
 import { Orders1764892800000 } from './1764892800000-orders';
+import { Retention1765065600000 } from './1765065600000-retention';
+import { JobLeases1765152000000 } from './1765152000000-job-leases';
 
 /** In order; TypeORM runs the ones not yet applied at start. */
 export const MIGRATIONS = [
@@ -15,4 +17,6 @@ export const MIGRATIONS = [
   Alarms1764640000000,
   Forecasts1764806400000,
   Orders1764892800000,
+  Retention1765065600000,
+  JobLeases1765152000000,
 ];

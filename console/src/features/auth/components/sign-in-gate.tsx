@@ -1,42 +1,58 @@
-import { useEffect, useState, type FormEvent, type ReactNode } from 'react';
-import {
-  Alert,
-  Box,
-  Button,
-  CircularProgress,
-  Paper,
-  Stack,
-  TextField,
-  Typography,
-} from '@mui/material';
+import { useEffect, useState, type ReactNode } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import Box from '@mui/material/Box';
+import CircularProgress from '@mui/material/CircularProgress';
 import {
   authorisedOutside,
   onSessionChange,
   refresh,
   session,
-  signIn,
+  useSession,
 } from '../../../lib/auth-session';
+import { useLiveRenewal } from '../hooks/use-live-renewal';
+import { FirstPassword } from './first-password';
+import { SignInForm } from './sign-in-form';
 
 export interface SignInGateProps {
   children: ReactNode;
 }
 
-/** Shows the console only to a signed-in person; first tries to resume the session from its cookie. */
+/**
+ * Shows the console only to a signed-in person; first tries to resume the session from its cookie.
+ * A temporary password is replaced before anything else opens.
+ */
 export function SignInGate({ children }: SignInGateProps) {
-  const [signedIn, setSignedIn] = useState(() => session() !== null);
-  const [resuming, setResuming] = useState(() => session() === null);
+  const current = useSession();
+  const [outside, setOutside] = useState(false);
+  const [resuming, setResuming] = useState(() => current === null);
+  const queryClient = useQueryClient();
+  useLiveRenewal();
 
-  useEffect(() => onSessionChange((s) => setSignedIn(s !== null)), []);
+  // What one person's screens fetched is not shown to the next one at this browser. Cleared as the
+  // session changes, before the next person's screens mount and start their own queries.
   useEffect(() => {
-    if (session()) return;
+    let lastUser = session()?.me.id ?? null;
+    return onSessionChange((next) => {
+      const userId = next?.me.id ?? null;
+      if (userId !== lastUser) queryClient.clear();
+      lastUser = userId;
+    });
+  }, [queryClient]);
+
+  useEffect(() => {
+    if (current) return;
     void refresh()
+      .catch(() => false)
       .then(async (ok) => {
-        if (!ok && (await authorisedOutside())) setSignedIn(true);
+        if (!ok && (await authorisedOutside())) setOutside(true);
       })
       .finally(() => setResuming(false));
+    // once, at start
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
 
-  if (signedIn) return <>{children}</>;
+  if (current?.me.mustChangePassword) return <FirstPassword me={current.me} />;
+  if (current || outside) return <>{children}</>;
   if (resuming) {
     return (
       <Box sx={{ display: 'grid', placeItems: 'center', minHeight: '100vh' }}>
@@ -45,62 +61,4 @@ export function SignInGate({ children }: SignInGateProps) {
     );
   }
   return <SignInForm />;
-}
-
-function SignInForm() {
-  const [username, setUsername] = useState('');
-  const [password, setPassword] = useState('');
-  const [totp, setTotp] = useState('');
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  const submit = async (event: FormEvent) => {
-    event.preventDefault();
-    setBusy(true);
-    setError(await signIn(username.trim(), password, totp || undefined));
-    setBusy(false);
-  };
-
-  return (
-    <Box sx={{ display: 'grid', placeItems: 'center', minHeight: '100vh', p: 2 }}>
-      <Paper
-        component="form"
-        onSubmit={(e) => void submit(e)}
-        sx={{ p: 4, width: 380 }}
-        data-testid="sign-in"
-      >
-        <Stack spacing={2}>
-          <Typography variant="overline">Stillwell</Typography>
-          <Typography variant="h5">Sign in to the control room</Typography>
-          {error && <Alert severity="error">{error}</Alert>}
-          <TextField
-            label="Username"
-            value={username}
-            onChange={(e) => setUsername(e.target.value)}
-            autoComplete="username"
-            autoFocus
-            required
-          />
-          <TextField
-            label="Password"
-            type="password"
-            value={password}
-            onChange={(e) => setPassword(e.target.value)}
-            autoComplete="current-password"
-            required
-          />
-          <TextField
-            label="Authenticator code (if enrolled)"
-            value={totp}
-            onChange={(e) => setTotp(e.target.value)}
-            inputMode="numeric"
-            autoComplete="one-time-code"
-          />
-          <Button type="submit" variant="contained" disabled={busy}>
-            Sign in
-          </Button>
-        </Stack>
-      </Paper>
-    </Box>
-  );
 }

@@ -3,6 +3,7 @@ import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
 import GlobalStyles from '@mui/material/GlobalStyles';
 import Typography from '@mui/material/Typography';
+import { Link as RouterLink } from 'react-router-dom';
 import { describeError } from '../../../lib/api-client';
 import { formatSiteTime } from '../../../lib/format';
 import { useHead, useLastVerification, useVerifyNow } from '../api/chain';
@@ -19,13 +20,15 @@ const PRINT = {
 
 export interface ChainPanelProps {
   timeZone: string;
+  /** the printable sheet of the head */
+  printHref: string;
 }
 
 /**
  * The chain's state and its head hash, large and printable: a reviewer who keeps the printed head
  * can prove later that no entry before it was changed (verify with that head).
  */
-export function ChainPanel({ timeZone }: ChainPanelProps) {
+export function ChainPanel({ timeZone, printHref }: ChainPanelProps) {
   const head = useHead();
   const last = useLastVerification();
   const verify = useVerifyNow();
@@ -82,6 +85,9 @@ export function ChainPanel({ timeZone }: ChainPanelProps) {
           Verify now
         </Button>
         <Button onClick={() => window.print()}>Print the head</Button>
+        <Button component={RouterLink} to={printHref} data-testid="logbook-head-sheet-link">
+          Sheet to print and keep
+        </Button>
       </Box>
       {verify.isError && <Alert severity="error">{describeError(verify.error)}</Alert>}
     </Box>

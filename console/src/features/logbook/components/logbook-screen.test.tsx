@@ -112,4 +112,69 @@ describe('the logbook screen', () => {
       /Chain broken: entry 1: attachment .* bytes were changed/,
     );
   });
+
+  it('opens a printable sheet with the head as it is now, grouped for reading aloud', async () => {
+    const calls = gateway();
+    renderApp(`/reservoirs/${definition.id}/logbook`);
+    await screen.findByTestId('logbook-head-hash');
+    await userEvent.click(screen.getByTestId('logbook-head-sheet-link'));
+    const sheet = await screen.findByTestId('logbook-head-sheet');
+    const hash = within(sheet).getByTestId('logbook-head-sheet-hash');
+    expect(hash.getAttribute('data-hash')).toBe(entry(2).hash);
+    expect(hash.textContent).toBe(entry(2).hash.match(/.{8}/g)!.join(' '));
+    expect(within(sheet).getByTestId('logbook-head-seq').textContent).toBe('2');
+    expect(sheet.textContent).toMatch(
+      new RegExp(`/api/logbook/verify\\?headSeq=2&headHash=${entry(2).hash}`),
+    );
+    // the sheet asks the gateway again rather than printing what the screen had cached
+    expect(calls.filter((c) => c.path === '/api/logbook/head').length).toBeGreaterThanOrEqual(2);
+    // no console frame around it: nothing but the sheet is printed
+    expect(screen.queryByTestId('logbook-grid')).toBeNull();
+  });
+
+  it('records a handover from the shift-log form: to whom, what, and the files attached', async () => {
+    const calls = stubApi({
+      'GET /api/reservoirs': [],
+      [`GET ${base}`]: { version: 3, definition },
+      [`GET ${base}/status`]: makeStatus(),
+      'GET /api/logbook': { rows: [], total: 0 },
+      'GET /api/logbook/head': { seq: null, hash: null, time: null },
+      'GET /api/logbook/verification': null,
+      'POST /api/logbook/handovers': entry(1, 'shift.handover', {
+        from: 'operator',
+        to: 'Jory Penhale',
+        text: 'gate 2 at 3.0 m',
+      }),
+    });
+    renderApp(`/reservoirs/${definition.id}/logbook`);
+    const form = await screen.findByTestId('shift-log-form');
+    await userEvent.click(within(form).getByRole('button', { name: 'Handover' }));
+    const submit = within(form).getByTestId('shift-log-submit');
+    await userEvent.type(within(form).getByTestId('shift-log-text'), 'gate 2 at 3.0 m');
+    // a handover names who takes over: without it nothing can be recorded
+    expect(submit).toHaveProperty('disabled', true);
+    await userEvent.type(within(form).getByLabelText('Handing over to'), 'Jory Penhale');
+    const pdf = new File(['%PDF-1.4\n%%EOF\n'], 'seal-inspection.pdf', {
+      type: 'application/pdf',
+    });
+    const input = form.querySelector('input[type="file"]') as HTMLInputElement;
+    await userEvent.upload(input, pdf);
+    expect(submit).toHaveProperty('disabled', false);
+    await userEvent.click(submit);
+    await waitFor(() =>
+      expect(calls.some((c) => c.method === 'POST' && c.path === '/api/logbook/handovers')).toBe(
+        true,
+      ),
+    );
+    const body = calls.find((c) => c.path === '/api/logbook/handovers')!.body as FormData;
+    expect(body.get('to')).toBe('Jory Penhale');
+    expect(body.get('text')).toBe('gate 2 at 3.0 m');
+    expect((body.getAll('attachments') as File[]).map((f) => f.name)).toEqual([
+      'seal-inspection.pdf',
+    ]);
+    // the form is ready for the next entry
+    await waitFor(() =>
+      expect((within(form).getByTestId('shift-log-text') as HTMLTextAreaElement).value).toBe(''),
+    );
+  });
 });

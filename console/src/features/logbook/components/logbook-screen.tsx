@@ -7,6 +7,7 @@ import Typography from '@mui/material/Typography';
 import type { LogbookEntry } from '@stillwell/shared/logbook';
 import type { ReservoirDefinition } from '@stillwell/shared/reservoirs';
 import { Panel } from '../../../components/ui/panel';
+import { paths } from '../../../config/paths';
 import { describeError } from '../../../lib/api-client';
 import { useLiveSocket } from '../../../lib/live-connection';
 import { useLogbookPage } from '../api/get-logbook';
@@ -127,7 +128,10 @@ export function LogbookScreen({ definition }: LogbookScreenProps) {
       </Box>
       <Box sx={{ display: 'grid', gap: 2 }}>
         <Panel title="Chain">
-          <ChainPanel timeZone={definition.timeZone} />
+          <ChainPanel
+            timeZone={definition.timeZone}
+            printHref={paths.logbookHeadPrint.getHref(definition.id)}
+          />
         </Panel>
         <Panel title="Shift log">
           <ShiftLogForm definition={definition} />

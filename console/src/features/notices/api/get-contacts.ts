@@ -14,6 +14,7 @@ export function getContactsQueryOptions(reservoirId: string) {
   });
 }
 
-export function useContacts(reservoirId: string) {
-  return useQuery(getContactsQueryOptions(reservoirId));
+/** `enabled` false for someone who may not see the contact list (it is the liaison's). */
+export function useContacts(reservoirId: string, enabled = true) {
+  return useQuery({ ...getContactsQueryOptions(reservoirId), enabled });
 }

@@ -14,6 +14,7 @@ import { formatDistance, formatRelease, type Notice } from '@stillwell/shared/no
 import { describeError } from '../../../lib/api-client';
 import { fonts } from '../../../theme';
 import { useSendNotice } from '../api/send-notice';
+import { useCan } from '../hooks/use-can';
 import { minutes, siteTime } from '../utils/times';
 import { StandingChip } from './standing-chip';
 import { WordingDialog } from './wording-dialog';
@@ -35,6 +36,8 @@ export function NoticeCard({ reservoirId, notice, timeZone }: NoticeCardProps) {
   const [editing, setEditing] = useState(false);
   const [showText, setShowText] = useState(false);
   const send = useSendNotice(reservoirId);
+  const canSend = useCan('notices.send');
+  const canEdit = useCan('notices.manage');
   const t = (ms: number | null) => siteTime(ms, timeZone);
   return (
     <Paper
@@ -52,21 +55,26 @@ export function NoticeCard({ reservoirId, notice, timeZone }: NoticeCardProps) {
         </Typography>
         {notice.emergency && <Chip size="small" color="warning" label="Declared emergency" />}
         <Chip size="small" variant="outlined" label={STATE_LABELS[notice.state]} />
-        {notice.state === 'prepared' && (
-          <>
-            <Button size="small" onClick={() => setEditing(true)}>
-              Edit wording
-            </Button>
-            <Button
-              size="small"
-              variant="contained"
-              disabled={send.isPending}
-              onClick={() => send.mutate(notice.id)}
-            >
-              Send to {notice.recipients.length}{' '}
-              {notice.recipients.length === 1 ? 'contact' : 'contacts'}
-            </Button>
-          </>
+        {notice.state === 'prepared' && canEdit && (
+          <Button size="small" onClick={() => setEditing(true)}>
+            Edit wording
+          </Button>
+        )}
+        {notice.state === 'prepared' && canSend && (
+          <Button
+            size="small"
+            variant="contained"
+            disabled={send.isPending}
+            onClick={() => send.mutate(notice.id)}
+          >
+            Send to {notice.recipients.length}{' '}
+            {notice.recipients.length === 1 ? 'contact' : 'contacts'}
+          </Button>
+        )}
+        {notice.state === 'prepared' && !canSend && (
+          <Typography variant="body2" sx={{ color: 'text.secondary' }}>
+            The downstream liaison or the duty engineer sends it.
+          </Typography>
         )}
       </Box>
       <Box

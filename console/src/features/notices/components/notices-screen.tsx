@@ -10,6 +10,7 @@ import { ErrorMessage, LoadingMessage } from '../../../components/ui/state-messa
 import { describeError } from '../../../lib/api-client';
 import { useNotices } from '../api/get-notices';
 import { useSendNotice } from '../api/send-notice';
+import { useCan } from '../hooks/use-can';
 import { countsSentence, groupByOrder } from '../utils/board';
 import { NoticeCard } from './notice-card';
 
@@ -24,6 +25,7 @@ export interface NoticesScreenProps {
 export function NoticesScreen({ definition }: NoticesScreenProps) {
   const notices = useNotices(definition.id);
   const send = useSendNotice(definition.id);
+  const canSend = useCan('notices.send');
   if (notices.isPending) return <LoadingMessage label="Loading the notices…" />;
   if (notices.isError)
     return (
@@ -58,7 +60,7 @@ export function NoticesScreen({ definition }: NoticesScreenProps) {
                 <Typography variant="body2" data-testid={`counts-${g.orderId}`}>
                   {countsSentence(g.counts)}
                 </Typography>
-                {unsent.length > 1 && (
+                {unsent.length > 1 && canSend && (
                   <Button
                     size="small"
                     variant="contained"

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import Box from '@mui/material/Box';
 import Button from '@mui/material/Button';
+import Typography from '@mui/material/Typography';
 import { DataGrid, type GridColDef } from '@mui/x-data-grid';
 import { formatDistance, type Contact, type Zone } from '@stillwell/shared/notices';
 import type { ReservoirDefinition } from '@stillwell/shared/reservoirs';
@@ -9,6 +10,7 @@ import { ErrorMessage } from '../../../components/ui/state-message';
 import { describeError } from '../../../lib/api-client';
 import { useContacts } from '../api/get-contacts';
 import { useZones } from '../api/get-zones';
+import { useCan } from '../hooks/use-can';
 import { minutes } from '../utils/times';
 import { ContactDialog } from './contact-dialog';
 import { ImportDialog } from './import-dialog';
@@ -77,7 +79,9 @@ export interface RegistryScreenProps {
 /** The downstream registry: zones (entered by the engineer) and the people to tell (kept by the liaison). */
 export function RegistryScreen({ definition }: RegistryScreenProps) {
   const zones = useZones(definition.id);
-  const contacts = useContacts(definition.id);
+  const canZones = useCan('notices.manage');
+  const canContacts = useCan('contacts.manage');
+  const contacts = useContacts(definition.id, canContacts);
   const [zone, setZone] = useState<Zone | 'new' | null>(null);
   const [contact, setContact] = useState<Contact | 'new' | null>(null);
   const [importing, setImporting] = useState(false);
@@ -85,7 +89,7 @@ export function RegistryScreen({ definition }: RegistryScreenProps) {
     <Box sx={{ display: 'grid', gap: 2 }}>
       <Panel
         title="Zones below the dam"
-        aside={<Button onClick={() => setZone('new')}>Add a zone</Button>}
+        aside={canZones && <Button onClick={() => setZone('new')}>Add a zone</Button>}
       >
         {zones.isError ? (
           <ErrorMessage
@@ -101,22 +105,28 @@ export function RegistryScreen({ definition }: RegistryScreenProps) {
             density="compact"
             autoHeight
             hideFooter
-            onRowClick={(p) => setZone(p.row)}
+            onRowClick={(p) => canZones && setZone(p.row)}
           />
         )}
       </Panel>
       <Panel
         title="Contacts"
         aside={
-          <Box sx={{ display: 'flex', gap: 1 }}>
-            <Button onClick={() => setImporting(true)}>Import CSV</Button>
-            <Button onClick={() => setContact('new')} disabled={!zones.data?.length}>
-              Add a contact
-            </Button>
-          </Box>
+          canContacts && (
+            <Box sx={{ display: 'flex', gap: 1 }}>
+              <Button onClick={() => setImporting(true)}>Import CSV</Button>
+              <Button onClick={() => setContact('new')} disabled={!zones.data?.length}>
+                Add a contact
+              </Button>
+            </Box>
+          )
         }
       >
-        {contacts.isError ? (
+        {!canContacts ? (
+          <Typography sx={{ color: 'text.secondary' }}>
+            The downstream liaison keeps the list of contacts.
+          </Typography>
+        ) : contacts.isError ? (
           <ErrorMessage
             title="The contacts could not be loaded."
             detail={describeError(contacts.error)}

@@ -98,7 +98,11 @@ function drawNow(u: uPlot, frame: ChartFrame) {
   ctx.restore();
 }
 
-function drawLines(u: uPlot, lines: readonly ChartLine[]) {
+/**
+ * The thresholds and the dam crest across the plot on the 'level' scale: dashed thresholds, the
+ * crest solid and heavier, each labelled at the right end. Lines outside the scale are skipped.
+ */
+export function drawLines(u: uPlot, lines: readonly ChartLine[], scale = 'level') {
   const { ctx, bbox } = u;
   const px = uPlot.pxRatio;
   ctx.save();
@@ -106,7 +110,7 @@ function drawLines(u: uPlot, lines: readonly ChartLine[]) {
   ctx.textAlign = 'right';
   ctx.textBaseline = 'bottom';
   for (const line of lines) {
-    const y = Math.round(u.valToPos(line.value, 'level', true));
+    const y = Math.round(u.valToPos(line.value, scale, true));
     if (y < bbox.top || y > bbox.top + bbox.height) continue;
     ctx.strokeStyle = line.color;
     ctx.lineWidth = (line.crest ? 2.5 : 1) * px;

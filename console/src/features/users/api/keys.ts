@@ -1,0 +1,3 @@
+export const usersKeys = {
+  all: () => ['users'] as const,
+};

@@ -1,0 +1,13 @@
+import { Module } from '@nestjs/common';
+import { ReportBuilder } from './report-builder.service';
+import { ReportJobs } from './report-jobs.service';
+import { ReportsController } from './reports.controller';
+import { RecordSource } from './record-source.service';
+
+/** Event reports for a window: figures from the stored record, PDF, JSON and CSV, built as jobs. */
+@Module({
+  controllers: [ReportsController],
+  providers: [RecordSource, ReportBuilder, ReportJobs],
+  exports: [ReportBuilder],
+})
+export class ReportsModule {}

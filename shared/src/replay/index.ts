@@ -1,0 +1,2 @@
+export * from './api.js';
+export * from './alarm-fold.js';
