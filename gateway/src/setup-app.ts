@@ -1,11 +1,14 @@
 import { ValidationPipe, type INestApplication } from '@nestjs/common';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import { scaleOut } from './common/cluster/scale-out';
 import { hardenHttp } from './common/http-hardening';
 import { validateEnv } from './config';
 
 /** Everything main.ts applies to the app, shared with the integration tests so they test the same thing. */
 export function setupApp(app: INestApplication): void {
-  hardenHttp(app, validateEnv(process.env));
+  const env = validateEnv(process.env);
+  hardenHttp(app, env);
+  scaleOut(app, env.REDIS_URL);
   app.setGlobalPrefix('api');
   app.useGlobalPipes(
     new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),

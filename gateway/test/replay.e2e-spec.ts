@@ -12,6 +12,7 @@ import { startTestGateway, type TestGateway } from './support/gateway';
 const RES = 'lake-orrin';
 const MIN = 60_000;
 const H = 3_600_000;
+const DAY_MS = 24 * H;
 const iso = (ms: number) => new Date(ms).toISOString();
 
 interface Row {
@@ -37,6 +38,7 @@ describe('replay: a recorded window from what is stored', () => {
       RETENTION_TICK_MS: '0',
       FORECAST_TICK_MS: '0',
       REPLAY_RAW_MAX_ROWS: '5000',
+      REPLAY_MINUTE_MAX_ROWS: '10000',
     });
     db = gateway.app.get(DataSource);
     reviewer = await signInAs(gateway, 'reviewer');
@@ -275,19 +277,37 @@ describe('replay: a recorded window from what is stored', () => {
     const to = iso(T0 + DAYS * 24 * H);
     const w = (await get('window', { from, to, buckets: 200, channels: 'inflow' }).expect(200))
       .body as ReplayWindow;
-    expect(w.resolution).toBe('minute');
-    expect(w.resolutionReason).toMatch(/more than 5,000/);
+    // 14,400 readings > 5,000 raw; 14,400 minutes > 10,000: hourly roll-ups, minutes, raw tail
+    expect(w.resolution).toBe('hour');
+    expect(w.resolutionReason).toMatch(/more than 5,000.*more than 10,000/);
     const s = w.series[0]!;
     expect(s.channel).toBe('inflow');
-    expect(s.sourcePoints).toBe(n);
     expect(s.t.length).toBeLessThanOrEqual(400);
     expect(s.t.length).toBeGreaterThan(200);
+    // aggregated up to 2 min before day 9 (the grace): 215 whole hours (min and max each), the
+    // 58 minutes of the hour not yet whole, then 1,442 raw readings
+    expect(s.sourcePoints).toBe(215 * 2 + 58 + 1442);
     expect(Math.max(...s.v)).toBe(peak.value);
     expect(s.t[s.v.indexOf(peak.value)]).toBe(peak.time);
     expect(Math.min(...s.v)).toBe(dip.value);
     expect(s.t).toEqual([...s.t].sort((a, b) => a - b));
 
     // a short window of raw readings, cut into 10 buckets: still the spike
+    // a window of the aggregated days short enough for minute aggregates: every minute is there
+    const minutes = (
+      await get('window', {
+        from: iso(T0 + DAY_MS),
+        to: iso(T0 + 5 * DAY_MS),
+        buckets: 5000,
+        channels: 'inflow',
+      }).expect(200)
+    ).body as ReplayWindow;
+    expect(minutes.resolution).toBe('minute');
+    expect(minutes.series[0]!.sourcePoints).toBe(4 * 1440);
+    expect(minutes.series[0]!.t).toEqual(
+      rows.filter((r) => r.time >= T0 + DAY_MS && r.time <= T0 + 5 * DAY_MS).map((r) => r.time),
+    );
+
     const short = (
       await get('window', {
         from: iso(peak.time - 2 * H),

@@ -40,6 +40,7 @@ export interface WindowRequest {
 @Injectable()
 export class ReplayService {
   readonly rawMaxRows: number;
+  readonly minuteMaxRows: number;
   readonly maxWindowMs: number;
 
   constructor(
@@ -49,6 +50,7 @@ export class ReplayService {
     config: ConfigService<Env, true>,
   ) {
     this.rawMaxRows = config.get('REPLAY_RAW_MAX_ROWS', { infer: true });
+    this.minuteMaxRows = config.get('REPLAY_MINUTE_MAX_ROWS', { infer: true });
     this.maxWindowMs = config.get('REPLAY_MAX_WINDOW_DAYS', { infer: true }) * DAY_MS;
   }
 
@@ -80,6 +82,7 @@ export class ReplayService {
       toMs: q.toMs,
       intervalsS: wanted.map((c) => c.intervalS),
       rawMaxRows: this.rawMaxRows,
+      minuteMaxRows: this.minuteMaxRows,
       prunedThroughMs: marks.prunedThrough,
     });
     const series = [];

@@ -1,7 +1,7 @@
 import { downsampleMinMax, type Quality, type SeriesPoint } from '@stillwell/shared/telemetry';
 import type { ReplayResolution } from '@stillwell/shared/replay';
 import type { Queryable } from '../retention/aggregate-sql';
-import { floorMinute } from '../retention/minute-aggregates';
+import { floorHour, floorMinute, HOUR_MS } from '../retention/minute-aggregates';
 
 interface Point extends SeriesPoint {
   q: Quality;
@@ -36,14 +36,22 @@ async function rawPoints(db: Queryable, r: SeriesRequest, fromMs: number): Promi
   return rows.map((x) => ({ t: Number(x.time), v: x.value, q: x.quality }));
 }
 
-/** Each aggregated minute as its two extremes, at the times they were measured. */
-async function minutePoints(db: Queryable, r: SeriesRequest, beforeMs: number): Promise<Point[]> {
+/** Each aggregate in [fromMs, beforeMs) as its two extremes, at the times they were measured. */
+async function aggregatePoints(
+  db: Queryable,
+  r: SeriesRequest,
+  level: 'minute' | 'hour',
+  fromMs: number,
+  beforeMs: number,
+): Promise<Point[]> {
+  if (beforeMs <= fromMs) return [];
+  const table = level === 'minute' ? 'reading_aggregates' : 'reading_hour_aggregates';
   const rows = (await db.query(
     `SELECT "min", "min_time" AS "mint", "max", "max_time" AS "maxt", "suspect_count" AS "s"
-     FROM "reading_aggregates"
-     WHERE "reservoir_id" = ? AND "channel" = ? AND "minute" >= ? AND "minute" < ? AND "count" > 0
-     ORDER BY "minute"`,
-    [r.reservoirId, r.channel, floorMinute(r.fromMs), beforeMs],
+     FROM "${table}"
+     WHERE "reservoir_id" = ? AND "channel" = ? AND "${level}" >= ? AND "${level}" < ? AND "count" > 0
+     ORDER BY "${level}"`,
+    [r.reservoirId, r.channel, fromMs, beforeMs],
   )) as Array<{ min: number; mint: number; max: number; maxt: number; s: number }>;
   const out: Point[] = [];
   for (const m of rows) {
@@ -56,19 +64,38 @@ async function minutePoints(db: Queryable, r: SeriesRequest, beforeMs: number): 
   return out;
 }
 
+const ceilTo = (ms: number, step: number) => Math.ceil(ms / step) * step;
+
+/**
+ * The window in tiers, oldest first: hourly roll-ups for whole hours inside it (hour resolution),
+ * minute aggregates around them up to the aggregate mark, raw readings after the mark.
+ */
+async function tieredPoints(db: Queryable, r: SeriesRequest, mark: number): Promise<Point[]> {
+  const minuteFrom = floorMinute(r.fromMs);
+  const split = Math.min(Math.max(mark, r.fromMs), r.toMs + 1);
+  const tail = await rawPoints(db, r, split);
+  if (r.resolution !== 'hour')
+    return [...(await aggregatePoints(db, r, 'minute', minuteFrom, split)), ...tail];
+  const hourFrom = Math.min(ceilTo(r.fromMs, HOUR_MS), split);
+  const hourTo = Math.max(hourFrom, Math.min(floorHour(r.toMs + 1), floorHour(split)));
+  return [
+    ...(await aggregatePoints(db, r, 'minute', minuteFrom, hourFrom)),
+    ...(await aggregatePoints(db, r, 'hour', hourFrom, hourTo)),
+    ...(await aggregatePoints(db, r, 'minute', hourTo, split)),
+    ...tail,
+  ];
+}
+
 /**
  * One channel over the window, downsampled to at most 2 x buckets points with each bucket's
- * minimum and maximum kept (downsampleMinMax). At minute resolution the aggregated minutes
- * come from the aggregates and the minutes not yet aggregated from raw readings.
+ * minimum and maximum kept (downsampleMinMax). Aggregated stretches come from the aggregates,
+ * the minutes not yet aggregated from raw readings.
  */
 export async function readSeries(db: Queryable, r: SeriesRequest): Promise<SeriesColumns> {
-  let points: Point[];
-  if (r.resolution === 'raw' || r.aggregatedThroughMs === null) {
-    points = await rawPoints(db, r, r.fromMs);
-  } else {
-    const split = Math.min(Math.max(r.aggregatedThroughMs, r.fromMs), r.toMs + 1);
-    points = [...(await minutePoints(db, r, split)), ...(await rawPoints(db, r, split))];
-  }
+  const points =
+    r.resolution === 'raw' || r.aggregatedThroughMs === null
+      ? await rawPoints(db, r, r.fromMs)
+      : await tieredPoints(db, r, r.aggregatedThroughMs);
   const kept = downsampleMinMax(points, r.buckets, r.fromMs, r.toMs) as Point[];
   return {
     t: kept.map((p) => p.t),

@@ -1,4 +1,10 @@
-import { floorHour, foldHours, HOUR_MS, type MinuteAggregate, type RawReading } from './minute-aggregates';
+import {
+  floorHour,
+  foldHours,
+  HOUR_MS,
+  type MinuteAggregate,
+  type RawReading,
+} from './minute-aggregates';
 
 /** What the SQL helpers need of a connection: TypeORM's DataSource, EntityManager, or a bare adapter. */
 export interface Queryable {

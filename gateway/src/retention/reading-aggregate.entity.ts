@@ -46,3 +46,44 @@ export class ReadingAggregateRow {
   @Column('integer', { name: 'first_received_at' })
   firstReceivedAt: number;
 }
+
+/** The minute aggregates rolled up per hour, for windows too long to read minute by minute. */
+@Entity('reading_hour_aggregates')
+export class ReadingHourAggregateRow {
+  @PrimaryColumn('text', { name: 'reservoir_id' })
+  reservoirId: string;
+
+  @PrimaryColumn('text')
+  channel: string;
+
+  /** start of the hour, epoch ms (site time) */
+  @PrimaryColumn('integer')
+  hour: number;
+
+  @Column('integer')
+  count: number;
+
+  @Column('real', { nullable: true })
+  min: number | null;
+
+  @Column('integer', { name: 'min_time', nullable: true })
+  minTime: number | null;
+
+  @Column('real', { nullable: true })
+  max: number | null;
+
+  @Column('integer', { name: 'max_time', nullable: true })
+  maxTime: number | null;
+
+  @Column('real', { nullable: true })
+  mean: number | null;
+
+  @Column('integer', { name: 'suspect_count' })
+  suspectCount: number;
+
+  @Column('integer', { name: 'bad_count' })
+  badCount: number;
+
+  @Column('integer', { name: 'first_received_at' })
+  firstReceivedAt: number;
+}

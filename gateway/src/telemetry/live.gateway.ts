@@ -43,11 +43,12 @@ export class LiveGateway implements OnGatewayInit, OnModuleDestroy {
     // guards do not run on socket.io: the token is checked in the handshake, rooms by the matrix
     this.access.protect(this.server);
     this.subscriptions.push(
+      // local: every gateway hears every stored batch (StoredFeed) and pushes to its own consoles
       this.ingestion.stored$.subscribe(({ reservoirId, readings }) =>
-        this.server.to(room(reservoirId)).emit(LIVE_EVENTS.readings, readings),
+        this.server.local.to(room(reservoirId)).emit(LIVE_EVENTS.readings, readings),
       ),
       this.status.status$.subscribe((s) =>
-        this.server.to(room(s.reservoirId)).emit(LIVE_EVENTS.status, s),
+        this.server.local.to(room(s.reservoirId)).emit(LIVE_EVENTS.status, s),
       ),
     );
   }

@@ -1,8 +1,11 @@
+import { useQuery } from '@tanstack/react-query';
 import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it } from 'vitest';
 import { permissionsOf, type Me } from '@stillwell/shared/access';
+import { z } from 'zod';
 import { AppProvider } from '../../../app/provider';
+import { apiGet } from '../../../lib/api-client';
 import { signOut } from '../../../lib/auth-session';
 import { FakeLiveSocket } from '../../../testing/fake-live-socket';
 import { stubApi, type Call } from '../../../testing/orders-fixtures';
@@ -29,11 +32,20 @@ const token = (m: Me) => ({
 const refusal = (status: number, code: string, extra: object = {}) =>
   Response.json({ statusCode: status, code, message: code, ...extra }, { status });
 
+/** A screen behind the gate that fetches as soon as it mounts. */
+function ControlRoom() {
+  const zones = useQuery({
+    queryKey: ['probe'],
+    queryFn: () => apiGet('/api/probe', z.object({ name: z.string() })),
+  });
+  return <p>the control room{zones.data && `: ${zones.data.name}`}</p>;
+}
+
 function renderGate() {
   return render(
     <AppProvider queryClient={createTestQueryClient()} socket={new FakeLiveSocket()}>
       <SignInGate>
-        <p>the control room</p>
+        <ControlRoom />
       </SignInGate>
     </AppProvider>,
   );
@@ -60,6 +72,7 @@ describe('the sign-in page', () => {
           : (c.body as { totp?: string }).totp
             ? token(me({ totpEnabled: true }))
             : refusal(401, 'totp-required'),
+      'GET /api/probe': { name: 'Lake Orrin' },
     });
     renderGate();
     await fillSignIn('wren.ashby', 'wrong');
@@ -72,7 +85,8 @@ describe('the sign-in page', () => {
     await userEvent.type(await screen.findByLabelText('Authenticator code'), '492039');
     await userEvent.click(screen.getByRole('button', { name: 'Sign in' }));
 
-    expect(await screen.findByText('the control room')).toBeTruthy();
+    // the screens behind the gate load what they fetch once signed in
+    expect(await screen.findByText('the control room: Lake Orrin')).toBeTruthy();
     expect(calls.filter((c) => c.path === '/api/auth/sign-in').map((c) => c.body)).toEqual([
       { username: 'wren.ashby', password: 'wrong' },
       { username: 'wren.ashby', password: 'marsh-lantern-velvet' },
@@ -83,7 +97,7 @@ describe('the sign-in page', () => {
   it('resumes a session from the refresh cookie without asking', async () => {
     stubApi({ 'POST /api/auth/refresh': token(me()) });
     renderGate();
-    expect(await screen.findByText('the control room')).toBeTruthy();
+    expect(await screen.findByText(/the control room/)).toBeTruthy();
   });
 
   it('after a temporary password, asks for one of their own under the shared rules before anything opens', async () => {
@@ -98,7 +112,7 @@ describe('the sign-in page', () => {
     });
     renderGate();
     const form = await screen.findByTestId('first-password');
-    expect(screen.queryByText('the control room')).toBeNull();
+    expect(screen.queryByText(/the control room/)).toBeNull();
     const [temporary, fresh, again] = [
       screen.getByLabelText(/Temporary password/),
       screen.getByLabelText(/^New password$/),
@@ -143,7 +157,7 @@ describe('the sign-in page', () => {
     await userEvent.type(fresh!, 'copper-reeds-below-the-weir');
     await userEvent.type(again!, 'copper-reeds-below-the-weir');
     await userEvent.click(screen.getByRole('button', { name: 'Change password' }));
-    expect(await screen.findByText('the control room')).toBeTruthy();
+    expect(await screen.findByText(/the control room/)).toBeTruthy();
     expect(calls.filter((c) => c.path === '/api/auth/password').at(-1)?.body).toEqual({
       currentPassword: 'quartz-heron-ladle-sprig',
       newPassword: 'copper-reeds-below-the-weir',
@@ -151,7 +165,9 @@ describe('the sign-in page', () => {
   });
 
   it('asks 15 characters of an administrator', async () => {
-    stubApi({ 'POST /api/auth/refresh': token(me({ roles: ['admin'], mustChangePassword: true })) });
+    stubApi({
+      'POST /api/auth/refresh': token(me({ roles: ['admin'], mustChangePassword: true })),
+    });
     renderGate();
     await userEvent.type(await screen.findByLabelText(/Temporary password/), 'x');
     await userEvent.type(screen.getByLabelText(/^New password$/), 'fourteen-chars');

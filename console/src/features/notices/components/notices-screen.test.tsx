@@ -2,11 +2,13 @@ import { render, screen, waitFor, within } from '@testing-library/react';
 import { QueryClient } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import userEvent from '@testing-library/user-event';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
+import { permissionsOf, type Role } from '@stillwell/shared/access';
 import type { ImportResult, MyRelease, Notice, Recipient } from '@stillwell/shared/notices';
 import { definition, makeStatus, SITE_NOW } from '../../../testing/fixtures';
 import { AppProvider } from '../../../app/provider';
 import { DownstreamRoute, MyReleasesRoute, NoticesRoute } from '../../../app/routes/notices';
+import { signIn, signOut } from '../../../lib/auth-session';
 import { FakeLiveSocket } from '../../../testing/fake-live-socket';
 import { stubFetch, type RouteAnswer } from '../../../testing/stub-fetch';
 
@@ -248,5 +250,61 @@ describe('downstream notices screens', { timeout: 20_000 }, () => {
     renderApp('/my-releases');
     await userEvent.click(await screen.findByRole('button', { name: 'Acknowledge' }));
     expect((await screen.findByTestId('acknowledged-at')).textContent).toMatch(/^Acknowledged /);
+  });
+
+  describe('what each role is offered (the shared permission matrix; the gateway decides)', () => {
+    afterEach(async () => {
+      await signOut();
+    });
+    /** Signs in through the session module, the sign-in answered by the stub with these roles. */
+    async function signedInAs(role: Role, routes: Record<string, RouteAnswer>) {
+      const me = {
+        id: `u-${role}`,
+        username: role,
+        displayName: role,
+        roles: [role],
+        permissions: permissionsOf([role]),
+        sessionId: 's1',
+        stepUpUntil: null,
+        totpEnabled: false,
+        mustChangePassword: false,
+      };
+      const stub = gateway({
+        '/api/auth/sign-in': {
+          accessToken: `token-${role}`,
+          expiresAt: new Date(Date.now() + 900_000).toISOString(),
+          me,
+        },
+        '/api/auth/sign-out': new Response(null, { status: 204 }),
+        ...routes,
+      });
+      expect(await signIn(role, 'any-password')).toBeNull();
+      return stub;
+    }
+
+    it('shows an operator the notices but no Send or wording buttons, and says who sends', async () => {
+      await signedInAs('operator', { [`${base}/notices`]: [notice()] });
+      renderApp(`/reservoirs/${definition.id}/notices`);
+      const card = await screen.findByTestId('notice-Hessford');
+      expect(within(card).queryByRole('button', { name: /^Send to / })).toBeNull();
+      expect(within(card).queryByRole('button', { name: 'Edit wording' })).toBeNull();
+      expect(card.textContent).toMatch(/The downstream liaison or the duty engineer sends it/);
+    });
+
+    it('offers the duty engineer Send and the zones, but leaves the contact list to the liaison', async () => {
+      const { calls } = await signedInAs('engineer', {
+        [`${base}/notices`]: [notice()],
+        [`${base}/zones`]: [],
+      });
+      renderApp(`/reservoirs/${definition.id}/notices`);
+      const card = await screen.findByTestId('notice-Hessford');
+      expect(within(card).getByRole('button', { name: 'Send to 1 contact' })).toBeTruthy();
+      renderApp(`/reservoirs/${definition.id}/downstream`);
+      expect(await screen.findByRole('button', { name: 'Add a zone' })).toBeTruthy();
+      expect(screen.getByText('The downstream liaison keeps the list of contacts.')).toBeTruthy();
+      expect(screen.queryByRole('button', { name: 'Import CSV' })).toBeNull();
+      // the list it may not read is not even asked for
+      expect(calls.some((u) => u.pathname === `${base}/contacts`)).toBe(false);
+    });
   });
 });

@@ -16,7 +16,7 @@ const day = (iso: string) =>
 export function userColumns(onAction: (user: User, action: RowAction) => void): GridColDef<User>[] {
   return [
     { field: 'username', headerName: 'Username', width: 150 },
-    { field: 'displayName', headerName: 'Name', flex: 1, minWidth: 160 },
+    { field: 'displayName', headerName: 'Name', flex: 1.5, minWidth: 200 },
     {
       field: 'roles',
       headerName: 'Roles',

@@ -123,7 +123,7 @@ describe("the administrator's users page", () => {
     );
   });
 
-  it("resets a password, offering to remove a lost second factor", async () => {
+  it('resets a password, offering to remove a lost second factor', async () => {
     const calls = await asAdmin(true, {
       'POST /api/users/u-rev/reset-password': { temporaryPassword: 'ember-flint-otter-mosaic' },
     });
