@@ -158,3 +158,15 @@ export function countAlarms(alarms: readonly AlarmView[]): AlarmCounts {
   }
   return { byPriority, shelved, outOfService };
 }
+
+/**
+ * Live push of alarms on the /live namespace: after subscribing, a console gets the reservoir's whole list
+ * (the same shape as GET /api/reservoirs/:id/alarms) at once and again whenever any alarm of it changes.
+ */
+export const ALARM_LIVE_EVENTS = {
+  /** client -> server: { reservoirId }, answered by an ack { ok, error? }; needs alarms.read */
+  subscribe: 'alarms-subscribe',
+  unsubscribe: 'alarms-unsubscribe',
+  /** server -> client: AlarmList */
+  list: 'alarm-list',
+} as const;
