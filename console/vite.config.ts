@@ -43,5 +43,7 @@ export default defineConfig({
     environment: 'jsdom',
     setupFiles: ['./src/testing/setup.ts'],
     include: ['src/**/*.test.{ts,tsx}'],
+    // jsdom with MUI is slow on a loaded 2-core machine: limits for hangs, not for speed
+    testTimeout: 30_000,
   },
 });

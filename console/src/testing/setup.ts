@@ -1,5 +1,8 @@
-import { cleanup } from '@testing-library/react';
+import { cleanup, configure } from '@testing-library/react';
 import { afterEach, beforeEach, vi } from 'vitest';
+
+// findBy* waits up to this long: a loaded CI machine renders MUI slowly (a limit, not a speed check).
+configure({ asyncUtilTimeout: 10_000 });
 
 // jsdom lacks these browser APIs; MUI and uPlot ask for them.
 if (!window.matchMedia) {
