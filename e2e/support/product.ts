@@ -24,8 +24,14 @@ export interface RunningProduct {
   stop(): Promise<number | null>;
 }
 
-/** Starts the product as `npm start` does (scripts/start.mjs), on free ports and a temporary database. */
-export async function startProduct(simulatorArgs: string[] = []): Promise<RunningProduct> {
+/**
+ * Starts the product as `npm start` does (scripts/start.mjs), on free ports and a temporary database.
+ * `env` adds gateway settings (e.g. a longer grace where a fast simulator meets a loaded machine).
+ */
+export async function startProduct(
+  simulatorArgs: string[] = [],
+  env: Record<string, string> = {},
+): Promise<RunningProduct> {
   const [port, mqttPort] = [await freePort(), await freePort()];
   const dir = mkdtempSync(join(tmpdir(), 'stillwell-e2e-'));
   let log = '';
@@ -39,6 +45,7 @@ export async function startProduct(simulatorArgs: string[] = []): Promise<Runnin
         MQTT_PORT: String(mqttPort),
         DATABASE_PATH: join(dir, 'stillwell.sqlite'),
         MQTT_CLIENT_ID: `stillwell-e2e-${process.pid}`,
+        ...env,
       },
       stdio: ['ignore', 'pipe', 'pipe'],
     },
