@@ -339,32 +339,38 @@ describe('alarms: MQTT -> engine -> store -> API -> logbook', () => {
     expect(dam.pool.t.length).toBeGreaterThan(0);
   });
 
-  it('changes a weir limit as a new definition version, for reservoir.edit with step-up only', async () => {
-    const weirs = DEMO_RESERVOIR.seepageWeirs!.map((w) =>
-      w.id === 'weir-left' ? { ...w, maxFlow: 0.02 } : w,
-    );
-    const denied = await request(gateway.url)
-      .post(`/api/reservoirs/${RES}/definition/dam-safety`)
-      .set(as(engineer))
-      .send({ seepageWeirs: weirs });
-    expect(denied.status).toBe(403);
+  it('changes a weir limit as a new definition version, for limits.edit with step-up only', async () => {
+    const LIMITS = `/api/reservoirs/${RES}/definition/limits`;
+    const { version } = (
+      await request(gateway.url).get(`/api/reservoirs/${RES}`).set(as(operator)).expect(200)
+    ).body as { version: number };
+    const change = {
+      baseVersion: version,
+      note: 'limit raised after the 2029 survey',
+      seepageWeirs: [{ id: 'weir-left', maxFlow: 0.02 }],
+    };
+    // the administrator edits the definition but not its limits (the permission matrix)
     const admin = await signInAs(gateway, 'admin');
-    const unstepped = await request(gateway.url)
-      .post(`/api/reservoirs/${RES}/definition/dam-safety`)
-      .set(as(admin))
-      .send({ seepageWeirs: weirs });
-    expect(unstepped.body.code).toBe('step-up-required');
     await stepUp(gateway, admin);
+    const denied = await request(gateway.url).post(LIMITS).set(as(admin)).send(change);
+    expect([denied.status, denied.body.code]).toEqual([403, 'forbidden']);
+    const unstepped = await request(gateway.url).post(LIMITS).set(as(engineer)).send(change);
+    expect(unstepped.body.code).toBe('step-up-required');
+    await stepUp(gateway, engineer);
     const bad = await request(gateway.url)
-      .post(`/api/reservoirs/${RES}/definition/dam-safety`)
-      .set(as(admin))
-      .send({ seepageWeirs: [{ ...weirs[0], maxFlow: -1 }] });
+      .post(LIMITS)
+      .set(as(engineer))
+      .send({ ...change, seepageWeirs: [{ id: 'weir-left', maxFlow: -1 }] });
     expect(bad.status).toBe(400);
-    const ok = await request(gateway.url)
-      .post(`/api/reservoirs/${RES}/definition/dam-safety`)
-      .set(as(admin))
-      .send({ seepageWeirs: weirs, note: 'limit raised after the 2029 survey' })
-      .expect(201);
+    expect(bad.body.message.join('\n')).toMatch(/^seepageWeirs\[0\]\.maxFlow: /m);
+    const ok = await request(gateway.url).post(LIMITS).set(as(engineer)).send(change).expect(201);
+    expect(ok.body.changes).toEqual([
+      {
+        field: 'seepageWeirs.weir-left.maxFlow',
+        from: DEMO_RESERVOIR.seepageWeirs!.find((w) => w.id === 'weir-left')!.maxFlow,
+        to: 0.02,
+      },
+    ]);
     await gateway.app.get(AlarmsService).tick();
     const conditions = await request(gateway.url)
       .get(`${BASE}/conditions`)

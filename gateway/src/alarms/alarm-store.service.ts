@@ -1,5 +1,6 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
+import { Subject } from 'rxjs';
 import { DataSource, type EntityManager } from 'typeorm';
 import {
   applyAction,
@@ -49,6 +50,8 @@ const iso = (ms: number | null) => (ms === null ? null : new Date(ms).toISOStrin
 export class AlarmStore {
   private readonly logger = new Logger(AlarmStore.name);
   private readonly byReservoir = new Map<string, Map<string, AlarmRecord>>();
+  /** the reservoir whose alarms changed, after the change is committed (the live push) */
+  readonly changed$ = new Subject<string>();
 
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
@@ -80,41 +83,46 @@ export class AlarmStore {
     changes: readonly ConditionChange[],
     conditions: ReadonlyMap<string, AlarmCondition>,
   ): Promise<void> {
-    return this.writes.run(() =>
-      this.dataSource.transaction(async (tx) => {
-        const next = new Map<string, AlarmRecord>();
-        for (const c of changes) {
-          const condition = conditions.get(c.conditionId);
-          if (!condition) continue;
-          const before =
-            next.get(c.conditionId) ??
-            this.get(reservoirId, c.conditionId) ??
-            newRecord(reservoirId, condition, c.timeMs);
-          const { state, annunciated } = applyCondition(stateOf(before), c.change);
-          const raise = c.change === 'raise';
-          const after: AlarmRecord = {
-            ...withState(before, state, c.timeMs),
-            kind: condition.kind,
-            label: condition.label,
-            priority: condition.priority,
-            raisedAt: raise ? c.timeMs : before.raisedAt,
-            clearedAt: raise ? null : c.timeMs,
-            activations: before.activations + (raise ? 1 : 0),
-            value: c.value,
-            limitValue: c.limit,
-            message: c.message,
-          };
-          next.set(c.conditionId, after);
-          await this.event(tx, after, raise ? 'raised' : 'cleared', c.timeMs, {
-            annunciated,
-            text: c.message,
-            value: c.value,
-          });
-        }
-        for (const r of next.values()) await tx.save(AlarmRow, toRow(r));
-        for (const [id, r] of next) this.of(reservoirId).set(id, r);
-      }),
-    );
+    return this.writes
+      .run(() =>
+        this.dataSource.transaction(async (tx) => {
+          const next = new Map<string, AlarmRecord>();
+          for (const c of changes) {
+            const condition = conditions.get(c.conditionId);
+            if (!condition) continue;
+            const before =
+              next.get(c.conditionId) ??
+              this.get(reservoirId, c.conditionId) ??
+              newRecord(reservoirId, condition, c.timeMs);
+            const { state, annunciated } = applyCondition(stateOf(before), c.change);
+            const raise = c.change === 'raise';
+            const after: AlarmRecord = {
+              ...withState(before, state, c.timeMs),
+              kind: condition.kind,
+              label: condition.label,
+              priority: condition.priority,
+              raisedAt: raise ? c.timeMs : before.raisedAt,
+              clearedAt: raise ? null : c.timeMs,
+              activations: before.activations + (raise ? 1 : 0),
+              value: c.value,
+              limitValue: c.limit,
+              message: c.message,
+            };
+            next.set(c.conditionId, after);
+            await this.event(tx, after, raise ? 'raised' : 'cleared', c.timeMs, {
+              annunciated,
+              text: c.message,
+              value: c.value,
+            });
+          }
+          for (const r of next.values()) await tx.save(AlarmRow, toRow(r));
+          for (const [id, r] of next) this.of(reservoirId).set(id, r);
+          return next.size > 0;
+        }),
+      )
+      .then((changed) => {
+        if (changed) this.changed$.next(reservoirId);
+      });
   }
 
   /**
@@ -129,54 +137,62 @@ export class AlarmStore {
     actor: LogbookActor,
     ctx: { nowMs: () => number; shelveMaxMs: number },
   ): Promise<AlarmRecord> {
-    return this.writes.run(() => {
-      const nowMs = ctx.nowMs();
-      const action = actionAt(nowMs);
-      const before =
-        this.get(reservoirId, condition.id) ?? newRecord(reservoirId, condition, nowMs);
-      const result = applyAction(stateOf(before), action, { nowMs, shelveMaxMs: ctx.shelveMaxMs });
-      if (!result.ok) throw new AlarmRefusedError(result.refusal, result.message);
-      let after = withState(before, result.state, nowMs);
-      if (action.type === 'acknowledge') {
-        after = { ...after, acknowledgedAt: nowMs, acknowledgedBy: actor.username };
-      } else if (action.type === 'shelve' || action.type === 'remove-from-service') {
-        after = { ...after, handledBy: actor.username };
-      }
-      const text =
-        action.type === 'shelve' || action.type === 'remove-from-service'
-          ? action.reason.trim()
-          : (action.comment?.trim() ?? '') || null;
-      return this.dataSource.transaction(async (tx) => {
-        await tx.save(AlarmRow, toRow(after));
-        const { seq } = await this.logbook.append(
-          {
-            kind: ALARM_LOGBOOK_KINDS[action.type],
-            actor,
-            payload: {
-              reservoirId,
-              conditionId: condition.id,
-              label: condition.label,
-              priority: condition.priority,
-              siteTime: iso(nowMs),
-              from: displayState(stateOf(before)),
-              to: displayState(result.state),
-              ...(action.type === 'acknowledge' || action.type === 'return-to-service'
-                ? { comment: text }
-                : { reason: text }),
-              ...(action.type === 'shelve' ? { shelvedUntil: iso(action.untilMs) } : {}),
-            },
-          },
-          tx,
-        );
-        await this.event(tx, after, EVENT_OF[action.type], nowMs, {
-          actor,
-          text,
-          logbookSeq: seq,
+    return this.writes
+      .run(() => {
+        const nowMs = ctx.nowMs();
+        const action = actionAt(nowMs);
+        const before =
+          this.get(reservoirId, condition.id) ?? newRecord(reservoirId, condition, nowMs);
+        const result = applyAction(stateOf(before), action, {
+          nowMs,
+          shelveMaxMs: ctx.shelveMaxMs,
         });
-        this.of(reservoirId).set(condition.id, after);
+        if (!result.ok) throw new AlarmRefusedError(result.refusal, result.message);
+        let after = withState(before, result.state, nowMs);
+        if (action.type === 'acknowledge') {
+          after = { ...after, acknowledgedAt: nowMs, acknowledgedBy: actor.username };
+        } else if (action.type === 'shelve' || action.type === 'remove-from-service') {
+          after = { ...after, handledBy: actor.username };
+        }
+        const text =
+          action.type === 'shelve' || action.type === 'remove-from-service'
+            ? action.reason.trim()
+            : (action.comment?.trim() ?? '') || null;
+        return this.dataSource.transaction(async (tx) => {
+          await tx.save(AlarmRow, toRow(after));
+          const { seq } = await this.logbook.append(
+            {
+              kind: ALARM_LOGBOOK_KINDS[action.type],
+              actor,
+              payload: {
+                reservoirId,
+                conditionId: condition.id,
+                label: condition.label,
+                priority: condition.priority,
+                siteTime: iso(nowMs),
+                from: displayState(stateOf(before)),
+                to: displayState(result.state),
+                ...(action.type === 'acknowledge' || action.type === 'return-to-service'
+                  ? { comment: text }
+                  : { reason: text }),
+                ...(action.type === 'shelve' ? { shelvedUntil: iso(action.untilMs) } : {}),
+              },
+            },
+            tx,
+          );
+          await this.event(tx, after, EVENT_OF[action.type], nowMs, {
+            actor,
+            text,
+            logbookSeq: seq,
+          });
+          this.of(reservoirId).set(condition.id, after);
+          return after;
+        });
+      })
+      .then((after) => {
+        this.changed$.next(reservoirId);
         return after;
       });
-    });
   }
 
   /** Shelves that have run out (site time) return to service, each with a logbook entry. */
@@ -216,6 +232,7 @@ export class AlarmStore {
           }
         }),
       )
+      .then(() => this.changed$.next(reservoirId))
       .catch((error: unknown) => this.logger.error(`Shelf expiry failed: ${String(error)}`));
   }
 

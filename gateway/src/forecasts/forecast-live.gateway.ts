@@ -10,17 +10,16 @@ import {
 import type { Namespace, Socket } from 'socket.io';
 import type { Subscription } from 'rxjs';
 import { FORECAST_LIVE_EVENTS } from '@stillwell/shared/forecasts';
-import {
-  LIVE_NAMESPACE,
-  describeIssues,
-  subscribeRequestSchema,
-  type SubscribeAck,
-} from '@stillwell/shared/telemetry';
+import { LIVE_NAMESPACE, type SubscribeAck } from '@stillwell/shared/telemetry';
+import { joinReservoirRoom, leaveReservoirRoom, type ReservoirRoom } from '../auth/live-rooms';
 import { LiveSocketAuth } from '../auth/live-socket-auth';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { ForecastsService } from './forecasts.service';
 
-const room = (reservoirId: string) => `forecast:${reservoirId}`;
+const forecastRoom: ReservoirRoom = {
+  action: 'forecast.read',
+  room: (reservoirId) => `forecast:${reservoirId}`,
+};
 
 /**
  * Live forecasts on the /live namespace. A room of their own, apart from the reservoir's telemetry
@@ -44,7 +43,9 @@ export class ForecastLiveGateway implements OnGatewayInit, OnModuleDestroy {
 
   afterInit(): void {
     this.subscription = this.forecasts.updates$.subscribe((update) =>
-      this.server.to(room(update.reservoirId)).emit(FORECAST_LIVE_EVENTS.forecast, update),
+      this.server
+        .to(forecastRoom.room(update.reservoirId))
+        .emit(FORECAST_LIVE_EVENTS.forecast, update),
     );
   }
 
@@ -57,18 +58,18 @@ export class ForecastLiveGateway implements OnGatewayInit, OnModuleDestroy {
     @ConnectedSocket() socket: Socket,
     @MessageBody() body: unknown,
   ): Promise<SubscribeAck> {
-    const parsed = subscribeRequestSchema.safeParse(body);
-    if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
-    const { reservoirId } = parsed.data;
-    const refusal = await this.access.refusal(socket, 'forecast.read');
-    if (refusal) return { ok: false, error: refusal };
-    if (!this.reservoirs.find(reservoirId))
-      return { ok: false, error: `No reservoir "${reservoirId}"` };
-    await socket.join(room(reservoirId));
+    const { ack, joined } = await joinReservoirRoom(
+      this.access,
+      this.reservoirs,
+      forecastRoom,
+      socket,
+      body,
+    );
+    if (!joined) return ack;
     // socket.io keeps nothing for a client that was away: the latest run at once
-    socket.emit(FORECAST_LIVE_EVENTS.forecast, await this.forecasts.latestUpdate(reservoirId));
-    this.logger.debug(`${socket.id} follows the forecast of ${reservoirId}`);
-    return { ok: true };
+    socket.emit(FORECAST_LIVE_EVENTS.forecast, await this.forecasts.latestUpdate(joined));
+    this.logger.debug(`${socket.id} follows the forecast of ${joined}`);
+    return ack;
   }
 
   @SubscribeMessage(FORECAST_LIVE_EVENTS.unsubscribe)
@@ -76,9 +77,6 @@ export class ForecastLiveGateway implements OnGatewayInit, OnModuleDestroy {
     @ConnectedSocket() socket: Socket,
     @MessageBody() body: unknown,
   ): Promise<SubscribeAck> {
-    const parsed = subscribeRequestSchema.safeParse(body);
-    if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
-    await socket.leave(room(parsed.data.reservoirId));
-    return { ok: true };
+    return leaveReservoirRoom(forecastRoom, socket, body);
   }
 }

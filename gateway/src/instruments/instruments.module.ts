@@ -4,7 +4,7 @@ import { ReservoirsModule } from '../reservoirs/reservoirs.module';
 import { InstrumentsController } from './instruments.controller';
 import { InstrumentsService } from './instruments.service';
 
-/** The dam-safety instruments (seepage weirs, foundation piezometers): record and limits. */
+/** The dam-safety instruments (seepage weirs, foundation piezometers): their record. */
 @Module({
   imports: [ReservoirsModule, AlarmsModule],
   controllers: [InstrumentsController],

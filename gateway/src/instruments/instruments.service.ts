@@ -2,37 +2,18 @@ import { BadRequestException, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import type { DamSafety } from '@stillwell/shared/alarms';
-import { reservoirDefinitionSchema } from '@stillwell/shared/reservoirs';
 import { AlarmsService } from '../alarms/alarms.service';
 import { SiteClockService } from '../clock/site-clock.service';
-import type { LogbookActor } from '../logbook/logbook.service';
-import { LogbookService } from '../logbook/logbook.service';
-import { checkDefinition, zodProblems } from '../reservoirs/definition-checks';
-import { DEFINITION_CHANGED } from '../reservoirs/definition-upload.service';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
-import type { UploadProblem } from '../reservoirs/storage-csv';
 import { piezometerSeries, thin, weirSeries, type Points } from './dam-safety-series';
 
 const DAY_MS = 24 * 3_600_000;
 const WEEK_MS = 7 * DAY_MS;
 
-export interface LimitsChange {
-  seepageWeirs?: unknown[];
-  piezometers?: unknown[];
-  alarms?: Record<string, unknown>;
-}
-
-function refuse(problems: UploadProblem[]): never {
-  const errors = problems.filter((p) => p.severity === 'error');
-  throw new BadRequestException({
-    statusCode: 400,
-    error: 'Bad Request',
-    message: errors.slice(0, 50).map((p) => p.message),
-    problems: errors.slice(0, 200),
-  });
-}
-
-/** The dam-safety instruments: their record against the pool, and their limits and baselines. */
+/**
+ * The dam-safety instruments' record against the pool, with their limits and baselines (which
+ * change through POST definition/limits, in the reservoirs module).
+ */
 @Injectable()
 export class InstrumentsService {
   constructor(
@@ -40,7 +21,6 @@ export class InstrumentsService {
     private readonly reservoirs: ReservoirsService,
     private readonly clock: SiteClockService,
     private readonly alarms: AlarmsService,
-    private readonly logbook: LogbookService,
   ) {}
 
   async damSafety(
@@ -84,72 +64,6 @@ export class InstrumentsService {
         ),
       ),
       massBalance: this.alarms.massBalance(reservoirId),
-    };
-  }
-
-  /**
-   * New seepage-weir, piezometer or alarm limits and baselines: a new version of the definition,
-   * checked whole, written with its logbook entry in one transaction (as every definition upload).
-   */
-  async changeLimits(
-    reservoirId: string,
-    change: LimitsChange,
-    note: string | null,
-    actor: LogbookActor,
-  ) {
-    if (
-      change.seepageWeirs === undefined &&
-      change.piezometers === undefined &&
-      change.alarms === undefined
-    )
-      refuse([
-        {
-          field: '(body)',
-          row: 0,
-          line: null,
-          column: null,
-          message: '(body): give seepageWeirs, piezometers, alarms or several',
-          severity: 'error',
-        },
-      ]);
-    const current = this.reservoirs.get(reservoirId);
-    const parsed = reservoirDefinitionSchema.safeParse({ ...current.definition, ...change });
-    if (!parsed.success) refuse(zodProblems(parsed.error));
-    const problems = checkDefinition(parsed.data);
-    if (problems.some((p) => p.severity === 'error')) refuse(problems);
-    const changed = Object.keys(change).filter(
-      (k) => change[k as keyof LimitsChange] !== undefined,
-    );
-    let previousVersion: number | null = null;
-    const loaded = await this.reservoirs.addVersion(parsed.data, actor.username, {
-      change: 'dam-safety',
-      note,
-      baseVersion: current.version,
-      alsoWrite: (tx, version, previous) => {
-        previousVersion = previous;
-        return this.logbook.append(
-          {
-            kind: DEFINITION_CHANGED,
-            actor,
-            payload: {
-              reservoirId,
-              version,
-              previousVersion: previous,
-              change: 'dam-safety',
-              note,
-              changed,
-            },
-          },
-          tx,
-        );
-      },
-    });
-    return {
-      reservoirId,
-      version: loaded.version,
-      previousVersion,
-      change: 'dam-safety' as const,
-      changed,
     };
   }
 

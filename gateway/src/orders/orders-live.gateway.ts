@@ -10,18 +10,17 @@ import {
 import type { Namespace, Socket } from 'socket.io';
 import type { Subscription } from 'rxjs';
 import { ORDER_LIVE_EVENTS } from '@stillwell/shared/orders';
-import {
-  describeIssues,
-  LIVE_NAMESPACE,
-  subscribeRequestSchema,
-  type SubscribeAck,
-} from '@stillwell/shared/telemetry';
+import { LIVE_NAMESPACE, type SubscribeAck } from '@stillwell/shared/telemetry';
+import { joinReservoirRoom, leaveReservoirRoom, type ReservoirRoom } from '../auth/live-rooms';
 import { LiveSocketAuth } from '../auth/live-socket-auth';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { EmergencyService } from './emergency.service';
 import { OrderEvents } from './order-events';
 
-const room = (reservoirId: string) => `orders:${reservoirId}`;
+const ordersRoom: ReservoirRoom = {
+  action: 'orders.read',
+  room: (reservoirId) => `orders:${reservoirId}`,
+};
 
 /**
  * Orders, emergencies, automatic rules and order alarms, live on the /live namespace (whose
@@ -44,7 +43,7 @@ export class OrdersLiveGateway implements OnGatewayInit, OnModuleDestroy {
 
   afterInit(): void {
     this.subscription = this.events.events$.subscribe((e) => {
-      const to = this.server.to(room(e.reservoirId));
+      const to = this.server.to(ordersRoom.room(e.reservoirId));
       if (e.kind === 'order') to.emit(ORDER_LIVE_EVENTS.order, e.order);
       else if (e.kind === 'emergency') to.emit(ORDER_LIVE_EVENTS.emergency, e.emergency);
       else if (e.kind === 'automation') to.emit(ORDER_LIVE_EVENTS.automation, e.rule);
@@ -61,18 +60,18 @@ export class OrdersLiveGateway implements OnGatewayInit, OnModuleDestroy {
     @ConnectedSocket() socket: Socket,
     @MessageBody() body: unknown,
   ): Promise<SubscribeAck> {
-    const parsed = subscribeRequestSchema.safeParse(body);
-    if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
-    const { reservoirId } = parsed.data;
-    const refusal = await this.access.refusal(socket, 'orders.read');
-    if (refusal) return { ok: false, error: refusal };
-    if (!this.reservoirs.find(reservoirId))
-      return { ok: false, error: `No reservoir "${reservoirId}"` };
-    await socket.join(room(reservoirId));
+    const { ack, joined } = await joinReservoirRoom(
+      this.access,
+      this.reservoirs,
+      ordersRoom,
+      socket,
+      body,
+    );
+    if (!joined) return ack;
     // socket.io keeps nothing for a client that was away: the emergency state at once
-    socket.emit(ORDER_LIVE_EVENTS.emergency, await this.emergencies.current(reservoirId));
-    this.logger.debug(`${socket.id} follows the orders of ${reservoirId}`);
-    return { ok: true };
+    socket.emit(ORDER_LIVE_EVENTS.emergency, await this.emergencies.current(joined));
+    this.logger.debug(`${socket.id} follows the orders of ${joined}`);
+    return ack;
   }
 
   @SubscribeMessage(ORDER_LIVE_EVENTS.unsubscribe)
@@ -80,9 +79,6 @@ export class OrdersLiveGateway implements OnGatewayInit, OnModuleDestroy {
     @ConnectedSocket() socket: Socket,
     @MessageBody() body: unknown,
   ): Promise<SubscribeAck> {
-    const parsed = subscribeRequestSchema.safeParse(body);
-    if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
-    await socket.leave(room(parsed.data.reservoirId));
-    return { ok: true };
+    return leaveReservoirRoom(ordersRoom, socket, body);
   }
 }

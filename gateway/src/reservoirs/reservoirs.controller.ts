@@ -6,14 +6,22 @@ import {
   ApiOkResponse,
   ApiTags,
 } from '@nestjs/swagger';
-import type { ReservoirDefinition } from '@stillwell/shared/reservoirs';
+import {
+  limitsChangeSchema,
+  type LimitsChange,
+  type LimitsChangeResult,
+  type ReservoirDefinition,
+} from '@stillwell/shared/reservoirs';
 import type { ReservoirSummary } from '@stillwell/shared/telemetry';
 import { actorOf, type Principal } from '../auth/principal';
 import { CurrentPrincipal } from '../common/decorators/current-principal.decorator';
 import { Permission } from '../common/decorators/permission.decorator';
 import { RequiresStepUp } from '../common/decorators/requires-step-up.decorator';
+import { ZodApiBody } from '../orders/api-doc';
 import { DefinitionUploadService, type UploadResult } from './definition-upload.service';
 import { StorageTableUploadDto, StructuresUploadDto } from './dto/definition-upload.dto';
+import { LimitsChangePipe } from './limits-change.pipe';
+import { LimitsChangeService } from './limits-change.service';
 import { ReservoirsService, type VersionSummary } from './reservoirs.service';
 
 @ApiTags('reservoirs')
@@ -22,6 +30,7 @@ export class ReservoirsController {
   constructor(
     private readonly reservoirs: ReservoirsService,
     private readonly uploads: DefinitionUploadService,
+    private readonly limits: LimitsChangeService,
   ) {}
 
   @Get()
@@ -102,5 +111,32 @@ export class ReservoirsController {
       body.note ?? null,
       actorOf(principal),
     );
+  }
+
+  @Post(':id/definition/limits')
+  @HttpCode(201)
+  @Permission('limits.edit')
+  @RequiresStepUp()
+  @ZodApiBody(
+    limitsChangeSchema,
+    'baseVersion, note, and any of: alarm limit sections, alert levels, seepage-weir and piezometer limits and baselines',
+  )
+  @ApiCreatedResponse({
+    description:
+      'A new version with the changed limits; the answer and the logbook entry list every field from/to. The alarms judge by it at once.',
+  })
+  @ApiBadRequestResponse({
+    description:
+      'Refused: each problem names its field ("seepageWeirs[0].maxFlow: ..."); nothing is stored',
+  })
+  @ApiConflictResponse({
+    description: 'baseVersion is not the version in force: load the definition again',
+  })
+  changeLimits(
+    @Param('id') id: string,
+    @Body(new LimitsChangePipe()) body: LimitsChange,
+    @CurrentPrincipal() principal: Principal,
+  ): Promise<LimitsChangeResult> {
+    return this.limits.change(id, body, actorOf(principal));
   }
 }
