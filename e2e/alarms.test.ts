@@ -1,53 +1,58 @@
 import assert from 'node:assert/strict';
 import { after, before, test } from 'node:test';
 import type { BrowserContext, Page } from 'playwright-core';
-import { launchBrowser } from './support/browser.ts';
+import { demoPassword, launchBrowser, signInThroughForm } from './support/browser.ts';
 import { startProduct, type RunningProduct } from './support/product.ts';
 
 const RES = 'lake-orrin';
 const COMMENT = 'rain gauge checked: the logger is down, rain from the radar meanwhile';
+const LIMITS_NOTE = 'left weir notch recut after the survey: alarm limit raised (e2e)';
+const SHOTS = process.env.E2E_SCREENSHOTS ?? '/tmp';
 
 let product: RunningProduct;
-let browser: BrowserContext;
+// one person per browser: a session lives in its browser's refresh cookie
+let operatorBrowser: BrowserContext;
+let engineerBrowser: BrowserContext;
 
 before(async () => {
   // the rain gauge falls silent from 0.1 h: its stale alarm (advisory) comes within seconds at 600x
   product = await startProduct(['--speed', '600', '--dropout', 'rain-gauge:0.1-72']);
-  browser = await launchBrowser();
+  operatorBrowser = await launchBrowser();
+  engineerBrowser = await launchBrowser();
 });
 
 after(async () => {
-  await browser?.close();
+  await operatorBrowser?.close();
+  await engineerBrowser?.close();
   const code = await product?.stop();
   assert.equal(code, 0, `Ctrl-C should stop the product cleanly:\n${product?.output()}`);
 });
 
-/** Demo mode prints each account's password at start; sign in with it through the API. */
-async function tokenOf(role: string): Promise<string> {
-  const password = new RegExp(`^\\s+${role}\\s+(\\S+)\\s`, 'm').exec(product.output())?.[1];
-  assert.ok(password, `no demo password for ${role} in the output`);
-  const res = await fetch(`${product.url}/api/auth/sign-in`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ username: role, password }),
-  });
-  assert.equal(res.status, 200, await res.clone().text());
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-/**
- * The console has no sign-in screen yet: the operator's page sends the operator's access token
- * with every request, as the console's API client will once sign-in lands.
- */
-async function pageAs(role: string): Promise<Page> {
+/** Opens a console page and signs in through its own form, as a person does. */
+async function openAs(browser: BrowserContext, role: string, path: string): Promise<Page> {
   const page = await browser.newPage();
-  await page.setExtraHTTPHeaders({ Authorization: `Bearer ${await tokenOf(role)}` });
+  await page.goto(`${product.url}${path}`);
+  await signInThroughForm(page, role, demoPassword(product.output(), role));
   return page;
 }
 
+async function api<T>(role: string, path: string): Promise<T> {
+  const signedIn = await fetch(`${product.url}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ username: role, password: demoPassword(product.output(), role) }),
+  });
+  assert.equal(signedIn.status, 200, await signedIn.clone().text());
+  const { accessToken } = (await signedIn.json()) as { accessToken: string };
+  const res = await fetch(`${product.url}${path}`, {
+    headers: { Authorization: `Bearer ${accessToken}` },
+  });
+  assert.equal(res.status, 200, await res.clone().text());
+  return (await res.json()) as T;
+}
+
 test('an alarm shows in the banner and the list, is acknowledged with a comment, and the logbook has it', async () => {
-  const page = await pageAs('operator');
-  await page.goto(`${product.url}/reservoirs/${RES}/overview`);
+  const page = await openAs(operatorBrowser, 'operator', `/reservoirs/${RES}/overview`);
   // the banner is on every screen: here on the overview first
   await page.waitForFunction(
     () =>
@@ -64,15 +69,14 @@ test('an alarm shows in the banner and the list, is acknowledged with a comment,
   await row.waitFor({ timeout: 30_000 });
   assert.equal(await row.getAttribute('data-state'), 'unacknowledged');
   assert.match((await row.textContent()) ?? '', /No readings from rain-gauge/);
+  await page.screenshot({ path: `${SHOTS}/stillwell-alarm-list.png` });
 
   await row.getByRole('button', { name: 'Acknowledge' }).click();
   await page.getByTestId('alarm-action-text').fill(COMMENT);
   await page.getByTestId('alarm-action-confirm').click();
   await page.waitForSelector(
     '[data-testid="alarm-row-stale.rain-gauge"][data-state="acknowledged"]',
-    {
-      timeout: 30_000,
-    },
+    { timeout: 30_000 },
   );
 
   await row.getByRole('button', { name: 'History' }).click();
@@ -85,5 +89,45 @@ test('an alarm shows in the banner and the list, is acknowledged with a comment,
   const entry = page.getByTestId('logbook-grid').getByText(COMMENT);
   await entry.waitFor({ timeout: 30_000 });
   assert.match((await page.getByTestId('logbook-grid').textContent()) ?? '', /alarm\.acknowledged/);
-  await page.screenshot({ path: process.env.E2E_ALARMS_SCREENSHOT ?? '/tmp/stillwell-alarms.png' });
+  await page.screenshot({ path: `${SHOTS}/stillwell-alarms-logbook.png` });
+});
+
+interface Reservoir {
+  version: number;
+  definition: { seepageWeirs: Array<{ id: string; maxFlow: number }> };
+}
+
+test('the engineer raises a seepage limit through the form, confirming identity, and a new version holds it', async () => {
+  const before = await api<Reservoir>('engineer', `/api/reservoirs/${RES}`);
+  const page = await openAs(engineerBrowser, 'engineer', `/reservoirs/${RES}/dam-safety`);
+  const form = page.getByTestId('limits-form');
+  await form.waitFor({ timeout: 30_000 });
+  assert.equal(await form.getAttribute('data-version'), String(before.version));
+  const maxFlow = page.getByTestId('limit-weir.weir-left.maxFlow');
+  // the demo definition's left weir alarms above 0.015 m3/s, shown in l/s
+  assert.equal(await maxFlow.inputValue(), '15');
+  await page.getByTestId('weir-latest-weir-left').waitFor({ timeout: 30_000 });
+  await page.screenshot({ path: `${SHOTS}/stillwell-dam-safety.png`, fullPage: true });
+
+  await maxFlow.fill('16.5');
+  await page.getByTestId('limits-note').fill(LIMITS_NOTE);
+  await page.getByTestId('limits-save').click();
+  await page.getByTestId('step-up-password').fill(demoPassword(product.output(), 'engineer'));
+  await page.getByTestId('step-up-confirm').click();
+
+  const next = before.version + 1;
+  const saved = page.getByTestId('limits-saved');
+  await saved.waitFor({ timeout: 30_000 });
+  assert.match(
+    (await saved.textContent()) ?? '',
+    new RegExp(`version ${next}: .*seepageWeirs\\.weir-left\\.maxFlow 0\\.015 → 0\\.0165`),
+  );
+  const after = await api<Reservoir>('engineer', `/api/reservoirs/${RES}`);
+  assert.equal(after.version, next);
+  assert.equal(after.definition.seepageWeirs.find((w) => w.id === 'weir-left')?.maxFlow, 0.0165);
+
+  // the form opens again on the new version, showing the limit now in force
+  await page.locator(`[data-testid="limits-form"][data-version="${next}"]`).waitFor();
+  await page.screenshot({ path: `${SHOTS}/stillwell-dam-safety-saved.png`, fullPage: true });
+  assert.equal(await maxFlow.inputValue(), '16.5');
 });

@@ -1,7 +1,7 @@
 import assert from 'node:assert/strict';
 import { after, before, test } from 'node:test';
 import type { BrowserContext } from 'playwright-core';
-import { launchBrowser } from './support/browser.ts';
+import { demoPassword, launchBrowser, signInThroughForm } from './support/browser.ts';
 import { startProduct, type RunningProduct } from './support/product.ts';
 
 let product: RunningProduct;
@@ -65,4 +65,102 @@ test('the overview shows the pool elevation rising live, and marks a silent chan
   const poolRow = page.getByTestId('channel-row-pool.radar');
   assert.equal(await poolRow.getAttribute('data-stale'), 'false');
   await page.screenshot({ path: process.env.E2E_SCREENSHOT ?? '/tmp/stillwell-overview.png' });
+});
+
+/** The gateway's answer to one role's request, signed in with the demo password. */
+async function asRole(role: string) {
+  const signedIn = await fetch(`${product.url}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ username: role, password: demoPassword(product.output(), role) }),
+  });
+  assert.equal(signedIn.status, 200, await signedIn.clone().text());
+  const { accessToken } = (await signedIn.json()) as { accessToken: string };
+  return async <T>(path: string, body: unknown): Promise<T> => {
+    const res = await fetch(`${product.url}${path}`, {
+      method: 'POST',
+      headers: { Authorization: `Bearer ${accessToken}`, 'Content-Type': 'application/json' },
+      body: JSON.stringify(body),
+    });
+    assert.ok(res.ok, `${role} ${path}: ${res.status} ${await res.clone().text()}`);
+    return (await res.json()) as T;
+  };
+}
+
+test('during the storm the overview counts down to act, and the forecast answers a gate opening', async () => {
+  // a browser of its own: the first test's session would otherwise resume here
+  const own = await launchBrowser();
+  try {
+    const page = await own.newPage();
+    await page.goto(product.url);
+    await signInThroughForm(page, 'operator', demoPassword(product.output(), 'operator'));
+    // the flood rises from plant hour 24: at 600x that is about three wall minutes in
+    await page.waitForSelector('[data-testid="time-left"][data-state="ok"]', { timeout: 300_000 });
+    const clock = (await page.getByTestId('time-left-clock').textContent()) ?? '';
+    assert.match(clock, /^\d+:\d{2}:\d{2}$/, `countdown "${clock}"`);
+    const peakText = async () => (await page.getByTestId('forecast-peak').textContent()) ?? '';
+    const peakBefore = Number.parseFloat(await peakText());
+    assert.ok(peakBefore > 207 && peakBefore < 216, `forecast peak ${peakBefore} m`);
+
+    const outlook = page.getByTestId('threshold-outlook');
+    assert.ok((await outlook.locator('[data-tone]').count()) >= 4, 'every threshold is listed');
+    assert.ok((await outlook.locator('[data-tone="ahead"]').count()) >= 1);
+    assert.match((await outlook.textContent()) ?? '', /Dam crest.*(in \d|not reached)/s);
+    assert.match(
+      (await page.getByTestId('level-inflow-chart').getAttribute('aria-label')) ?? '',
+      /forecast band \(p10 to p90\) with its median/,
+    );
+    assert.match(
+      (await page.getByTestId('forecast-caution').first().textContent()) ?? '',
+      /Decision support only/,
+    );
+    await page.screenshot({
+      path: process.env.E2E_STORM_SCREENSHOT ?? '/tmp/stillwell-overview-storm.png',
+      fullPage: true,
+    });
+
+    // the gates opened through a gate order: drafted, authorised with the password again, executed
+    const operator = await asRole('operator');
+    const engineer = await asRole('engineer');
+    const order = await operator<{ id: number }>('/api/reservoirs/lake-orrin/orders', {
+      steps: [
+        {
+          offsetMin: 0,
+          targets: ['gate-1', 'gate-2', 'gate-3'].map((control) => ({ control, target: 3 })),
+        },
+      ],
+      reason: 'Release ahead of the flood peak, as the forecast advises',
+    });
+    await engineer('/api/auth/step-up', { password: demoPassword(product.output(), 'engineer') });
+    await engineer(`/api/orders/${order.id}/authorise`, { comment: 'Agreed on the forecast' });
+    await operator(`/api/orders/${order.id}/execute`, {});
+
+    // with the gates opening the forecast peak must come down, and the countdown with it
+    await page.waitForFunction(
+      (before) => {
+        const v = Number.parseFloat(
+          document.querySelector('[data-testid="forecast-peak"]')?.textContent ?? '',
+        );
+        return Number.isFinite(v) && v < before - 0.3;
+      },
+      peakBefore,
+      { timeout: 120_000 },
+    );
+    const peakAfter = Number.parseFloat(await peakText());
+    assert.ok(
+      peakAfter < peakBefore,
+      `peak ${peakAfter} m after the order, ${peakBefore} m before`,
+    );
+    const state = await page.getByTestId('time-left').getAttribute('data-state');
+    assert.ok(
+      state === 'not-needed' || state === 'ok',
+      `time left to act after the gates opened: ${state}`,
+    );
+    await page.screenshot({
+      path: process.env.E2E_GATES_SCREENSHOT ?? '/tmp/stillwell-overview-gates-open.png',
+      fullPage: true,
+    });
+  } finally {
+    await own.close();
+  }
 });

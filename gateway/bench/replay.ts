@@ -1,16 +1,20 @@
 // Replay benchmark (not a test): the downsampled query of a 7-day window of 20 channels at 1-second
-// readings (about 12 million rows) and their one-minute aggregates, in a real SQLite file, through
-// the gateway's own series reader. `npm run bench -w gateway` runs every suite; this one alone:
+// readings (about 12 million rows), their one-minute aggregates and hourly roll-ups, in a real SQLite
+// file, through the gateway's own resolution choice (default limits) and series reader. `npm run bench -w gateway` runs every suite; this one alone:
 // `node --import tsx bench/replay.ts [--json]` (BENCH_REPLAY_DAYS, BENCH_REPLAY_CHANNELS to shrink it).
 import { mkdtempSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
+import { z } from 'zod';
+import type { ReplayResolution } from '@stillwell/shared/replay';
 import { InitialSchema1764633600000 } from '../src/database/migrations/1764633600000-initial-schema';
 import { Retention1765065600000 } from '../src/database/migrations/1765065600000-retention';
+import { replayEnv } from '../src/replay/replay-env';
+import { chooseResolution } from '../src/replay/resolution';
 import { readSeries } from '../src/replay/series-reader';
-import type { Queryable } from '../src/retention/aggregate-sql';
-import { foldMinutes, type RawReading } from '../src/retention/minute-aggregates';
+import { type Queryable, rollUpHours } from '../src/retention/aggregate-sql';
+import { foldMinutes, HOUR_MS, type RawReading } from '../src/retention/minute-aggregates';
 
 const DAYS = Number(process.env.BENCH_REPLAY_DAYS ?? 7);
 const CHANNELS = Number(process.env.BENCH_REPLAY_CHANNELS ?? 20);
@@ -92,10 +96,11 @@ async function timeQuery(
   db: Queryable,
   fromMs: number,
   toMs: number,
-  resolution: 'raw' | 'minute',
-): Promise<{ ms: number; points: number; peaksKept: boolean; maxPerSeries: number }[]> {
+  resolution: ReplayResolution,
+  repeat = REPEAT,
+): Promise<{ ms: number; points: number; sourcePoints: number; maxPerSeries: number }[]> {
   const out = [];
-  for (let r = 0; r < REPEAT; r += 1) {
+  for (let r = 0; r < repeat; r += 1) {
     const started = performance.now();
     const series = [];
     for (let c = 0; c < CHANNELS; c += 1)
@@ -114,17 +119,24 @@ async function timeQuery(
     out.push({
       ms,
       points: series.reduce((n, s) => n + s.t.length, 0),
+      sourcePoints: series.reduce((n, s) => n + s.sourcePoints, 0),
       maxPerSeries: Math.max(...series.map((s) => s.t.length)),
-      peaksKept: series.every((s) => s.v.length > 0),
-      series,
     });
   }
-  return out.map(({ ms, points, peaksKept, maxPerSeries }) => ({
-    ms,
-    points,
-    peaksKept,
-    maxPerSeries,
-  }));
+  return out;
+}
+
+/** What the replay service would choose for the window with its default limits. */
+function serviceChoice(fromMs: number, toMs: number) {
+  const limits = z.object(replayEnv).parse({});
+  return chooseResolution({
+    fromMs,
+    toMs,
+    intervalsS: Array.from({ length: CHANNELS }, () => 1),
+    rawMaxRows: limits.REPLAY_RAW_MAX_ROWS,
+    minuteMaxRows: limits.REPLAY_MINUTE_MAX_ROWS,
+    prunedThroughMs: 0,
+  });
 }
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
@@ -142,62 +154,83 @@ async function main(): Promise<void> {
   const built = build(db);
   db.pragma('wal_checkpoint(TRUNCATE)');
   db.pragma('synchronous = FULL');
-  const sizeMb = statSync(file).size / 2 ** 20;
   const q = queryable(db);
-  const week = await timeQuery(q, T0, T0 + SPAN_MS, 'minute');
+  const rollStarted = performance.now();
+  // the hourly roll-ups, by the retention job's own code
+  for (let c = 0; c < CHANNELS; c += 1) await rollUpHours(q, RES, `ch-${c}`, T0, T0 + SPAN_MS);
+  const rollS = (performance.now() - rollStarted) / 1000;
+  db.pragma('wal_checkpoint(TRUNCATE)');
+  const sizeMb = statSync(file).size / 2 ** 20;
+  const choice = serviceChoice(T0, T0 + SPAN_MS);
+  const week = await timeQuery(q, T0, T0 + SPAN_MS, choice.resolution);
+  // for comparison only: the same window read minute by minute (what the roll-up saves)
+  const minutes =
+    choice.resolution === 'minute' ? week : await timeQuery(q, T0, T0 + SPAN_MS, 'minute', 3);
   // peaks: the true maximum of every channel must be among the points served
-  const check = await (async () => {
-    for (let c = 0; c < CHANNELS; c += 1) {
-      const s = await readSeries(q, {
-        reservoirId: RES,
-        channel: `ch-${c}`,
-        fromMs: T0,
-        toMs: T0 + SPAN_MS,
-        buckets: BUCKETS,
-        resolution: 'minute',
-        aggregatedThroughMs: T0 + SPAN_MS,
-      });
-      if (Math.max(...s.v) !== built.peaks[c]) return false;
-    }
-    return true;
-  })();
-  const hour = await timeQuery(q, T0 + SPAN_MS / 2, T0 + SPAN_MS / 2 + 3_600_000, 'raw');
+  let peaksKept = 0;
+  for (let c = 0; c < CHANNELS; c += 1) {
+    const s = await readSeries(q, {
+      reservoirId: RES,
+      channel: `ch-${c}`,
+      fromMs: T0,
+      toMs: T0 + SPAN_MS,
+      buckets: BUCKETS,
+      resolution: choice.resolution,
+      aggregatedThroughMs: T0 + SPAN_MS,
+    });
+    if (Math.max(...s.v) === built.peaks[c]) peaksKept += 1;
+  }
+  const hourWindow = serviceChoice(T0 + SPAN_MS / 2, T0 + SPAN_MS / 2 + HOUR_MS);
+  const hour = await timeQuery(
+    q,
+    T0 + SPAN_MS / 2,
+    T0 + SPAN_MS / 2 + HOUR_MS,
+    hourWindow.resolution,
+  );
   db.close();
   rmSync(dir, { recursive: true, force: true });
 
   const weekMs = median(week.map((w) => w.ms));
+  const minuteMs = median(minutes.map((w) => w.ms));
   const hourMs = median(hour.map((w) => w.ms));
   const results = [
     {
-      name: `replay: ${DAYS}-day window, ${CHANNELS} channels, downsampled from minute aggregates`,
+      name: `replay: ${DAYS}-day window, ${CHANNELS} channels, downsampled, at the resolution the service chooses (${choice.resolution}; ${week[0]!.sourcePoints.toLocaleString('en')} points read)`,
       value: +weekMs.toFixed(1),
       unit: 'ms',
       target: '<= 100',
       ok: weekMs <= 100,
     },
     {
-      name: `replay: points served for that window (${BUCKETS} buckets a series)`,
-      value: week[0]!.points,
+      name: `replay: most points of one series served for that window (${BUCKETS} buckets)`,
+      value: week[0]!.maxPerSeries,
       unit: 'points',
-      target: `<= ${2 * BUCKETS * CHANNELS}`,
+      target: `<= ${2 * BUCKETS}`,
       ok: week[0]!.maxPerSeries <= 2 * BUCKETS,
     },
     {
       name: 'replay: true peak of every channel among the points served',
-      value: check ? CHANNELS : 0,
+      value: peaksKept,
       unit: `of ${CHANNELS}`,
       target: String(CHANNELS),
-      ok: check,
+      ok: peaksKept === CHANNELS,
     },
     {
-      name: `replay: 1-hour window, ${CHANNELS} channels, raw readings downsampled`,
+      name: `replay: the same window from minute aggregates (${minutes[0]!.sourcePoints.toLocaleString('en')} points read; for comparison)`,
+      value: +minuteMs.toFixed(1),
+      unit: 'ms',
+      target: '-',
+      ok: true,
+    },
+    {
+      name: `replay: 1-hour window, ${CHANNELS} channels (${hourWindow.resolution}) downsampled`,
       value: +hourMs.toFixed(1),
       unit: 'ms',
       target: '-',
       ok: true,
     },
     {
-      name: `replay: bench file built (${built.rows.toLocaleString('en')} readings + aggregates, ${sizeMb.toFixed(0)} MiB)`,
+      name: `replay: bench file built (${built.rows.toLocaleString('en')} readings + aggregates, ${sizeMb.toFixed(0)} MiB; roll-up ${rollS.toFixed(1)} s)`,
       value: Math.round(built.rows / built.seconds),
       unit: 'rows/s',
       target: '-',

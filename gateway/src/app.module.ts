@@ -5,6 +5,7 @@ import { ScheduleModule } from '@nestjs/schedule';
 import { ServeStaticModule } from '@nestjs/serve-static';
 import { AlarmsModule } from './alarms/alarms.module';
 import { AuthModule } from './auth/auth.module';
+import { BackupModule } from './backup/backup.module';
 import { validateEnv } from './config';
 import { ClockModule } from './clock/clock.module';
 import { DatabaseModule } from './database/database.module';
@@ -62,6 +63,7 @@ export class AppModule {
         ReplayModule,
         ReportsModule,
         HealthModule,
+        BackupModule,
         ...consoleModule(env.CONSOLE_DIST),
       ],
     };

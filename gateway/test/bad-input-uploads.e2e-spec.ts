@@ -97,7 +97,12 @@ describe('upload names with path tricks, and broken uploads: nothing reaches the
       sha256: string;
     }>;
     // the display name: one segment, no separators, NUL or control characters, no leading dot
-    expect(ref!.name).toMatch(/^[^./\\\u0000-\u001f\u202e][^/\\\u0000-\u001f\u202e]*$/);
+    const shown = ref!.name;
+    expect(shown.length).toBeGreaterThan(0);
+    expect(shown.startsWith('.')).toBe(false);
+    expect([...shown].filter((ch) => '/\\\u202e'.includes(ch) || ch.charCodeAt(0) < 0x20)).toEqual(
+      [],
+    );
     expect(readdirSync(root()).sort()).toEqual(before);
     expect(readdirSync(attachmentsDir()).every((f) => /^[0-9a-f]{64}$/.test(f))).toBe(true);
     expect(readdirSync(attachmentsDir())).toContain(ref!.sha256);

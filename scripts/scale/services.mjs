@@ -48,7 +48,8 @@ export function ensurePackages(log) {
     ...(has('mosquitto') && has('mosquitto_passwd') ? [] : ['mosquitto']),
   ];
   if (!missing.length) return;
-  if (process.getuid?.() !== 0) throw new Error(`missing ${missing.join(', ')}: run as root to install`);
+  if (process.getuid?.() !== 0)
+    throw new Error(`missing ${missing.join(', ')}: run as root to install`);
   log(`installing ${missing.join(' ')} (apt-get)`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   execFileSync('apt-get', ['update'], { stdio: 'inherit', env });
@@ -105,7 +106,9 @@ export async function startPostgres(log) {
   }
   const run = (cmd, args) =>
     root
-      ? execFileSync('runuser', ['-u', 'postgres', '--', join(bin, cmd), ...args], { stdio: 'pipe' })
+      ? execFileSync('runuser', ['-u', 'postgres', '--', join(bin, cmd), ...args], {
+          stdio: 'pipe',
+        })
       : execFileSync(join(bin, cmd), args, { stdio: 'pipe' });
   run('initdb', ['-D', data, '-U', user, `--pwfile=${join(dir, 'pw')}`, '--auth=scram-sha-256']);
   const port = await freePort();
@@ -124,7 +127,16 @@ export async function startPostgres(log) {
 export async function startRedis(dir, log) {
   const port = await freePort();
   const d = daemon('redis', 'redis-server', [
-    '--port', String(port), '--bind', '127.0.0.1', '--save', '', '--appendonly', 'no', '--dir', dir,
+    '--port',
+    String(port),
+    '--bind',
+    '127.0.0.1',
+    '--save',
+    '',
+    '--appendonly',
+    'no',
+    '--dir',
+    dir,
   ]);
   await waitForPort(port, 'redis-server');
   log(`redis-server on 127.0.0.1:${port}`);
@@ -139,7 +151,8 @@ export async function startMosquitto(dir, accounts, acl, log) {
   const port = await freePort();
   const passwd = join(dir, 'mosquitto.passwd');
   writeFileSync(passwd, '');
-  for (const a of accounts) execFileSync('mosquitto_passwd', ['-b', passwd, a.username, a.password]);
+  for (const a of accounts)
+    execFileSync('mosquitto_passwd', ['-b', passwd, a.username, a.password]);
   const aclFile = join(dir, 'mosquitto.acl');
   writeFileSync(aclFile, `${acl}\n`);
   const conf = join(dir, 'mosquitto.conf');

@@ -56,6 +56,19 @@ describe('parseCli', () => {
     });
   });
 
+  it('reads the start time and the stats file, and names a bad start time', () => {
+    const result = parseCli(
+      ['--start-time', '2030-01-01T06:00:00Z', '--stats-file', '/tmp/sim-stats.json'],
+      {},
+    );
+    expect(result).toMatchObject({
+      statsFile: '/tmp/sim-stats.json',
+      options: { startTime: new Date(Date.UTC(2030, 0, 1, 6)) },
+    });
+    expect(() => parseCli(['--start-time', 'tomorrow'], {})).toThrow(/--start-time "tomorrow"/);
+    expect(() => parseCli(['--stats-file', ' '], {})).toThrow(/--stats-file/);
+  });
+
   it('takes the broker accounts from the environment, demo values only for what is unset', () => {
     const env = {
       SIM_GATEWAY_USERNAME: 'gw',

@@ -19,6 +19,11 @@ Usage: node dist/cli.js [options]
   --seed N                 seed of the instrument noise (default 1)
   --leak SIDE:H[:Q]        a hidden leak at the left or right abutment from hour H, growing to
                            Q m3/s (default 8): seepage rises and water goes missing unmeasured
+  --start-time ISO         plant time at the start (default: now, to the minute); a time in the past
+                           keeps a fast plant's readings behind the wall clock
+  --stats-file PATH        on SIGUSR2 the plant stops where it stands, the devices send what they
+                           hold and keep answering backfill requests, and what each produced is
+                           written here as JSON (again at exit)
   --print-accounts         print the broker accounts (for another broker's password file) and exit
   --help                   show this text
 
@@ -30,7 +35,13 @@ Broker accounts (the broker started here admits only these, each to its own topi
 
 export type CliResult =
   | { help: true }
-  | { help: false; options: SimulationOptions; printAccounts: boolean; demoCredentials: boolean };
+  | {
+      help: false;
+      options: SimulationOptions;
+      printAccounts: boolean;
+      demoCredentials: boolean;
+      statsFile?: string;
+    };
 
 function number(name: string, text: string, check: (n: number) => boolean): number {
   const n = Number(text);
@@ -58,6 +69,8 @@ export function parseCli(argv: readonly string[], env: NodeJS.ProcessEnv): CliRe
       freeze: { type: 'string', multiple: true },
       seed: { type: 'string' },
       leak: { type: 'string' },
+      'start-time': { type: 'string' },
+      'stats-file': { type: 'string' },
       'print-accounts': { type: 'boolean' },
       help: { type: 'boolean' },
     },
@@ -94,6 +107,18 @@ export function parseCli(argv: readonly string[], env: NodeJS.ProcessEnv): CliRe
   if (portText !== undefined) options.brokerPort = number('broker-port', portText, isPort);
   if (mqttUrl !== undefined) options.mqttUrl = mqttUrl;
   if (values.leak !== undefined) options.leak = parseLeak(values.leak);
+  const startText = values['start-time'];
+  if (startText !== undefined) {
+    const ms = Date.parse(startText);
+    if (!/^\d{4}-\d{2}-\d{2}T/.test(startText) || !Number.isFinite(ms)) {
+      throw new RangeError(`--start-time "${startText}" is not an ISO 8601 time`);
+    }
+    options.startTime = new Date(ms);
+  }
+  const statsFile = values['stats-file'];
+  if (statsFile !== undefined && statsFile.trim() === '') {
+    throw new RangeError('--stats-file: a path is needed');
+  }
   if (values.seed !== undefined) {
     options.seed = number('seed', values.seed, (n) => Number.isInteger(n) && n >= 0);
   }
@@ -102,5 +127,6 @@ export function parseCli(argv: readonly string[], env: NodeJS.ProcessEnv): CliRe
     options,
     printAccounts: values['print-accounts'] ?? false,
     demoCredentials: demo,
+    ...(statsFile !== undefined ? { statsFile } : {}),
   };
 }

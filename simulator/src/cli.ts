@@ -3,7 +3,8 @@ import { DEMO_RESERVOIR } from '@stillwell/shared/reservoirs';
 import { brokerAccounts } from './broker/accounts.js';
 import { ACL_RULES } from './broker/acl.js';
 import { parseCli, USAGE } from './cli-options.js';
-import { startSimulation } from './simulation.js';
+import { startSimulation, type SimulationStats } from './simulation.js';
+import { writeStats } from './stats-file.js';
 
 const log = (line: string) =>
   console.log(`[sim ${new Date().toISOString().slice(11, 19)}] ${line}`);
@@ -39,6 +40,25 @@ async function main(): Promise<void> {
   }
   const sim = await startSimulation({ ...parsed.options, log });
 
+  const { statsFile } = parsed;
+  const record = (stats: SimulationStats) => {
+    if (statsFile) writeStats(statsFile, stats);
+  };
+  if (statsFile) {
+    process.on('SIGUSR2', () => {
+      sim.hold().then(
+        (stats) => {
+          record(stats);
+          const produced = stats.devices.reduce((n, d) => n + d.lastSeq + 1, 0);
+          log(
+            `held at plant ${stats.plantTime}: ${produced} readings produced; stats in ${statsFile}`,
+          );
+        },
+        (error: unknown) => console.error('hold failed:', error),
+      );
+    });
+  }
+
   let stopping = false;
   const shutdown = (signal: string) => {
     if (stopping) {
@@ -49,6 +69,7 @@ async function main(): Promise<void> {
     log(`${signal}: closing devices, then the broker`);
     sim.stop().then(
       () => {
+        record(sim.stats());
         log('stopped');
         process.exitCode = 0;
       },

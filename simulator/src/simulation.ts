@@ -11,6 +11,7 @@ import { aclPolicy } from './broker/acl.js';
 import { startBroker, type BrokerPolicy, type RunningBroker } from './broker/broker.js';
 import { DeviceFleet } from './devices/fleet.js';
 import { DeviceLink } from './devices/link.js';
+import type { DeviceStats } from './devices/telemetry-device.js';
 import { floorToMinute, PlantClock } from './plant/clock.js';
 import { ReservoirPlant } from './plant/reservoir-plant.js';
 import { PlantRunner } from './plant/runner.js';
@@ -68,8 +69,25 @@ export interface Simulation {
   advance(plantSeconds: number): void;
   /** resolves when the broker has acknowledged every message published so far */
   flush(): Promise<void>;
+  /**
+   * Stops the plant where it stands, keeping every device connected: they send what waits in their
+   * buffers and go on answering backfill requests. Resolves once nothing waits (or after `waitMs`),
+   * with what each device produced: the ledger a fault test counts against.
+   */
+  hold(waitMs?: number): Promise<SimulationStats>;
+  /** what each device has produced so far */
+  stats(): SimulationStats;
   /** closes the devices, then the broker */
   stop(): Promise<void>;
+}
+
+export interface SimulationStats {
+  /** plant time, ISO 8601 */
+  plantTime: string;
+  held: boolean;
+  /** every device's buffer is empty and the broker has acknowledged all it was sent */
+  idle: boolean;
+  devices: DeviceStats[];
 }
 
 export async function startSimulation(options: SimulationOptions = {}): Promise<Simulation> {
@@ -191,6 +209,13 @@ export async function startSimulation(options: SimulationOptions = {}): Promise<
   }
 
   let stopping: Promise<void> | undefined;
+  let held = false;
+  const stats = (idle: boolean): SimulationStats => ({
+    plantTime: new Date(plant.state.timeMs).toISOString(),
+    held,
+    idle,
+    devices: devices.stats(),
+  });
   return {
     brokerPort: broker?.port ?? null,
     mqttUrl,
@@ -204,6 +229,28 @@ export async function startSimulation(options: SimulationOptions = {}): Promise<
     async flush() {
       await Promise.all([devices.flush(), clockOut.flush()]);
     },
+    async hold(waitMs = 30_000) {
+      if (!held) {
+        held = true;
+        runner.stop();
+        // with the plant still, nothing else pumps: a congested or reconnected link is retried here
+        timers.push(setInterval(() => devices.pump(), 250));
+      }
+      const until = Date.now() + waitMs;
+      while (!devices.idle && Date.now() < until) {
+        devices.pump();
+        await new Promise((r) => setTimeout(r, 100));
+      }
+      // a link that is down may never hear back: do not wait past the deadline for it
+      let timer: NodeJS.Timeout | undefined;
+      const late = new Promise<void>(
+        (r) => (timer = setTimeout(r, Math.max(0, until - Date.now()))),
+      );
+      await Promise.race([devices.flush(), late]);
+      clearTimeout(timer);
+      return stats(devices.idle);
+    },
+    stats: () => stats(devices.idle),
     stop() {
       stopping ??= (async () => {
         runner.stop();

@@ -12,6 +12,7 @@ import { OrdersRoute } from './routes/orders';
 import { OverviewRoute } from './routes/overview';
 import { ProfileRoute } from './routes/profile';
 import { ReplayRoute } from './routes/replay';
+import { ReportsRoute } from './routes/reports';
 import { ReservoirLayout } from './routes/reservoir-layout';
 import { RouteError } from './routes/route-error';
 import { WhatIfRoute } from './routes/what-if';
@@ -42,6 +43,7 @@ export const routes: RouteObject[] = [
       { path: paths.whatIf.path, element: <WhatIfRoute /> },
       { path: paths.logbook.path, element: <LogbookRoute /> },
       { path: paths.replay.path, element: <ReplayRoute /> },
+      { path: paths.reports.path, element: <ReportsRoute /> },
       { path: paths.notices.path, element: <NoticesRoute /> },
       { path: paths.downstream.path, element: <DownstreamRoute /> },
       { path: paths.outbox.path, element: <OutboxRoute /> },

@@ -59,6 +59,10 @@ export const paths = {
     path: 'replay',
     getHref: (reservoirId: string) => `/reservoirs/${encodeURIComponent(reservoirId)}/replay`,
   },
+  reports: {
+    path: 'reports',
+    getHref: (reservoirId: string) => `/reservoirs/${encodeURIComponent(reservoirId)}/reports`,
+  },
   /** a downstream stakeholder's releases, outside any reservoir's screens */
   myReleases: {
     path: '/my-releases',
@@ -104,6 +108,7 @@ export const RESERVOIR_SCREENS: readonly ScreenLink[] = [
   { id: 'what-if', label: 'What-if', getHref: paths.whatIf.getHref, action: 'forecast.read' },
   { id: 'logbook', label: 'Logbook', getHref: paths.logbook.getHref, action: 'logbook.read' },
   { id: 'replay', label: 'Replay', getHref: paths.replay.getHref, action: 'replay.read' },
+  { id: 'reports', label: 'Reports', getHref: paths.reports.getHref, action: 'reports.create' },
   { id: 'notices', label: 'Notices', getHref: paths.notices.getHref, action: 'notices.read' },
   {
     id: 'downstream',

@@ -1,4 +1,5 @@
 import { io, type Socket } from 'socket.io-client';
+import { ALARM_LIVE_EVENTS } from '@stillwell/shared/alarms';
 import { FORECAST_LIVE_EVENTS } from '@stillwell/shared/forecasts';
 import { LOGBOOK_LIVE_EVENTS } from '@stillwell/shared/logbook';
 import { ORDER_LIVE_EVENTS } from '@stillwell/shared/orders';
@@ -24,6 +25,7 @@ export interface LiveSocketEvents {
   automation: (payload: unknown) => void;
   'order-alarm': (payload: unknown) => void;
   'logbook-entry': (payload: unknown) => void;
+  'alarm-list': (payload: unknown) => void;
 }
 
 /**
@@ -46,6 +48,9 @@ export interface LiveSocket {
   /** the orders room (orders, emergency, automatic rules, order alarms): orders.read */
   subscribeOrders(request: SubscribeRequest, onAck: (ack: SubscribeAck) => void): void;
   unsubscribeOrders(request: SubscribeRequest): void;
+  /** the alarms room (the whole alarm list at once, then on every change): alarms.read */
+  subscribeAlarms(request: SubscribeRequest, onAck: (ack: SubscribeAck) => void): void;
+  unsubscribeAlarms(request: SubscribeRequest): void;
   /** the logbook room (new entries after their commit): logbook.read */
   followLogbook(onAck: (ack: SubscribeAck) => void): void;
   unfollowLogbook(): void;
@@ -60,6 +65,7 @@ interface ServerToClient {
   [ORDER_LIVE_EVENTS.automation]: (payload: unknown) => void;
   [ORDER_LIVE_EVENTS.alarm]: (payload: unknown) => void;
   [LOGBOOK_LIVE_EVENTS.entry]: (payload: unknown) => void;
+  [ALARM_LIVE_EVENTS.list]: (payload: unknown) => void;
 }
 
 interface ClientToServer {
@@ -75,6 +81,11 @@ interface ClientToServer {
     ack: (ack: SubscribeAck) => void,
   ) => void;
   [ORDER_LIVE_EVENTS.unsubscribe]: (request: SubscribeRequest) => void;
+  [ALARM_LIVE_EVENTS.subscribe]: (
+    request: SubscribeRequest,
+    ack: (ack: SubscribeAck) => void,
+  ) => void;
+  [ALARM_LIVE_EVENTS.unsubscribe]: (request: SubscribeRequest) => void;
   [LOGBOOK_LIVE_EVENTS.follow]: (ack: (ack: SubscribeAck) => void) => void;
   [LOGBOOK_LIVE_EVENTS.unfollow]: () => void;
 }
@@ -116,6 +127,9 @@ export function createLiveSocket(): LiveSocket {
     subscribeOrders: (request, onAck) =>
       void socket.emit(ORDER_LIVE_EVENTS.subscribe, request, onAck),
     unsubscribeOrders: (request) => void socket.emit(ORDER_LIVE_EVENTS.unsubscribe, request),
+    subscribeAlarms: (request, onAck) =>
+      void socket.emit(ALARM_LIVE_EVENTS.subscribe, request, onAck),
+    unsubscribeAlarms: (request) => void socket.emit(ALARM_LIVE_EVENTS.unsubscribe, request),
     followLogbook: (onAck) => void socket.emit(LOGBOOK_LIVE_EVENTS.follow, onAck),
     unfollowLogbook: () => void socket.emit(LOGBOOK_LIVE_EVENTS.unfollow),
   };

@@ -17,6 +17,11 @@ export class FakeLiveSocket implements LiveSocket {
     request: SubscribeRequest;
     ack: (ack: SubscribeAck) => void;
   }[] = [];
+  readonly alarmsSubscriptions: {
+    request: SubscribeRequest;
+    ack: (ack: SubscribeAck) => void;
+  }[] = [];
+  readonly alarmsUnsubscriptions: SubscribeRequest[] = [];
   readonly logbookFollows: Array<(ack: SubscribeAck) => void> = [];
   private readonly listeners: Listeners = {
     connect: new Set(),
@@ -30,6 +35,7 @@ export class FakeLiveSocket implements LiveSocket {
     automation: new Set(),
     'order-alarm': new Set(),
     'logbook-entry': new Set(),
+    'alarm-list': new Set(),
   };
 
   connect(): void {
@@ -70,6 +76,14 @@ export class FakeLiveSocket implements LiveSocket {
 
   unsubscribeOrders(request: SubscribeRequest): void {
     this.unsubscriptions.push(request);
+  }
+
+  subscribeAlarms(request: SubscribeRequest, ack: (ack: SubscribeAck) => void): void {
+    this.alarmsSubscriptions.push({ request, ack });
+  }
+
+  unsubscribeAlarms(request: SubscribeRequest): void {
+    this.alarmsUnsubscriptions.push(request);
   }
 
   followLogbook(ack: (ack: SubscribeAck) => void): void {

@@ -1,10 +1,12 @@
 import { resolve } from 'node:path';
 import { z } from 'zod';
 import { accessEnv } from '../auth/access-env';
+import { backupEnv } from '../backup/backup-env';
 import { mailEnv } from '../mail/mail-env';
 import { noticesEnv } from '../notices/notices-env';
 import { replayEnv } from '../replay/replay-env';
 import { retentionEnv } from '../retention/retention-env';
+import { backfillEnv } from '../telemetry/backfill-env';
 
 const bool = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])
@@ -54,6 +56,8 @@ export const envSchema = z.object({
   ...noticesEnv,
   ...retentionEnv,
   ...replayEnv,
+  ...backfillEnv,
+  ...backupEnv,
 });
 export type Env = z.infer<typeof envSchema>;
 

@@ -99,7 +99,12 @@ export class ReadingsSource {
   }
 
   /** Every reading of a channel in the window, oldest first, lazily (for the CSV). */
-  rows(reservoirId: string, channel: string, from: number, to: number): IterableIterator<RawReadingRow> {
+  rows(
+    reservoirId: string,
+    channel: string,
+    from: number,
+    to: number,
+  ): IterableIterator<RawReadingRow> {
     return this.db
       .prepare(
         `SELECT channel, device_id, seq, time, value, quality, received_at FROM readings

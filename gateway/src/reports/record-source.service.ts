@@ -161,7 +161,12 @@ export class RecordSource {
       .getMany();
     const alarms = await this.dataSource.getRepository(AlarmRow).findBy({ reservoirId });
     return {
-      events: rows.map((r) => ({ conditionId: r.conditionId, kind: r.kind, t: r.siteTime, id: r.id })),
+      events: rows.map((r) => ({
+        conditionId: r.conditionId,
+        kind: r.kind,
+        t: r.siteTime,
+        id: r.id,
+      })),
       labels: new Map(alarms.map((a) => [a.conditionId, { label: a.label, priority: a.priority }])),
     };
   }

@@ -22,6 +22,9 @@ export const CHART_BUCKETS = 400;
 
 export type Progress = (stage: ReportStage, percent: number) => void;
 
+/** Lets the event loop answer progress polls and store readings between the long reads. */
+const breathe = () => new Promise<void>((resolve) => setImmediate(resolve));
+
 /** Collects an event report's figures for a window from the stored record. */
 @Injectable()
 export class ReportBuilder {
@@ -52,6 +55,7 @@ export class ReportBuilder {
     const byRole = (role: string) => definition.channels.find((c) => c.role === role)?.id ?? null;
 
     progress('readings', 2);
+    await breathe();
     const source = this.openReadings();
     let summary: EventReport['summary'];
     let charts: EventReport['charts'];
@@ -69,12 +73,15 @@ export class ReportBuilder {
         }
       }
       progress('readings', 12);
+      await breathe();
       const inflowChannel = byRole('inflow');
       const outflowChannel = byRole('outflow');
       const inflow = read(inflowChannel);
       progress('readings', 20);
+      await breathe();
       const outflow = read(outflowChannel);
       progress('readings', 28);
+      await breathe();
       const peak = (channel: string | null, pts: SeriesPoint[] | undefined) => {
         const p = pts ? peakOf(pts) : null;
         return p && channel ? { channel, value: p.v, t: p.t } : null;
@@ -113,9 +120,7 @@ export class ReportBuilder {
     const timelines = orderTimelines(orders, entries);
 
     progress('notices', 48);
-    const notices = noticeLeads(
-      await this.records.noticeRecipients(reservoirId, from, to, orders),
-    );
+    const notices = noticeLeads(await this.records.noticeRecipients(reservoirId, from, to, orders));
 
     progress('alarms', 52);
     const { events, labels } = await this.records.alarmEvents(reservoirId, from, to);
@@ -131,8 +136,7 @@ export class ReportBuilder {
       from,
       to,
       generatedAt: new Date().toISOString(),
-      demo:
-        this.config.get('DEMO_MODE', { infer: true }) && reservoirId === DEMO_RESERVOIR.id,
+      demo: this.config.get('DEMO_MODE', { infer: true }) && reservoirId === DEMO_RESERVOIR.id,
       caution: REPORT_CAUTION,
       thresholds: definition.thresholds.map((t) => ({ label: t.label, elevation: t.elevation })),
       summary,
@@ -146,7 +150,9 @@ export class ReportBuilder {
         headSeq: verdict.headSeq,
         headHash: verdict.headHash,
         checkedAt: verdict.checkedAt,
-        problem: verdict.firstBad ? `${verdict.firstBad.problem}: ${verdict.firstBad.detail}` : null,
+        problem: verdict.firstBad
+          ? `${verdict.firstBad.problem}: ${verdict.firstBad.detail}`
+          : null,
       },
       charts,
     };

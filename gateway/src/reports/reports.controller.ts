@@ -74,7 +74,9 @@ export class ReportsController {
 
   @Get('demo-window')
   @Permission('reports.create')
-  @ApiOkResponse({ description: 'The demo storm: from the first stored pool reading, 72 h or to the last' })
+  @ApiOkResponse({
+    description: 'The demo storm: from the first stored pool reading, 72 h or to the last',
+  })
   demoWindow(@Param('reservoirId') reservoirId: string): ReportWindow {
     const { definition } = this.reservoir(reservoirId);
     const source = this.builder.openReadings();
@@ -115,7 +117,9 @@ export class ReportsController {
     const { format } = new ZodPipe(resultQuerySchema).transform(query);
     const file = this.jobs.result(reservoirId, id, p.userId, format);
     if (!file)
-      throw new NotFoundException(`format: the job has no ${format} result (not asked for, or not done)`);
+      throw new NotFoundException(
+        `format: the job has no ${format} result (not asked for, or not done)`,
+      );
     res.setHeader('Content-Type', MEDIA[format]);
     res.setHeader('Content-Disposition', `attachment; filename="${file.name}"`);
     res.setHeader('X-Content-Type-Options', 'nosniff');

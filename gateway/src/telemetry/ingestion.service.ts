@@ -18,7 +18,7 @@ import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { QuarantinedMessage } from './quarantined-message.entity';
 import { Reading } from './reading.entity';
 import { ReadingInserter, type NewReading } from './reading-insert';
-import { SequenceGap } from './sequence-gap.entity';
+import { SequenceGap, type NewSequenceGap } from './sequence-gap.entity';
 import { SequenceTracker } from './sequence-tracker';
 
 /** Raw payloads kept in quarantine are cut here: enough to see what was wrong, not a disk filler. */
@@ -55,7 +55,7 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
   private readings: NewReading[] = [];
   private fresh: LiveReading[] = [];
   private quarantine: Array<Omit<QuarantinedMessage, 'id'>> = [];
-  private gaps: Array<Omit<SequenceGap, 'id'>> = [];
+  private gaps: NewSequenceGap[] = [];
   private flushTimer?: NodeJS.Timeout;
   private readonly batchSize: number;
   private readonly flushMs: number;
@@ -63,6 +63,8 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
   private readonly maxPayloadBytes: number;
   private readonly inserter: ReadingInserter;
   readonly stored$ = new Subject<StoredBatch>();
+  /** gaps were written: the backfill service takes them up */
+  readonly gapsStored$ = new Subject<void>();
   readonly counters: IngestionCounters = {
     received: 0,
     stored: 0,
@@ -236,6 +238,7 @@ export class IngestionService implements OnApplicationBootstrap, OnModuleDestroy
           this.counters.stored += inserted;
           this.counters.repeats += readings.length - inserted;
           this.publish(fresh);
+          if (gaps.length) this.gapsStored$.next();
         },
         (error: Error) => {
           // Put the batch back so nothing is lost; the next flush tries again.

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { ReservoirsModule } from '../reservoirs/reservoirs.module';
+import { BackfillService } from './backfill.service';
 import { IngestionService } from './ingestion.service';
 import { LiveGateway } from './live.gateway';
 import { QuarantinedMessage } from './quarantined-message.entity';
@@ -13,7 +14,7 @@ import { TelemetryController } from './telemetry.controller';
 @Module({
   imports: [TypeOrmModule.forFeature([Reading, QuarantinedMessage, SequenceGap]), ReservoirsModule],
   controllers: [TelemetryController],
-  providers: [IngestionService, ReadingsService, StatusService, LiveGateway],
-  exports: [IngestionService, StatusService],
+  providers: [IngestionService, BackfillService, ReadingsService, StatusService, LiveGateway],
+  exports: [IngestionService, BackfillService, StatusService],
 })
 export class TelemetryModule {}

@@ -18,7 +18,7 @@ export type ReportFormat = (typeof REPORT_FORMATS)[number];
 export const REPORT_CAUTION =
   'This report is decision support drawn from the stored record. Forecasts in it were estimates, ' +
   "never certainty. The dam's approved operating rules, its emergency action plan, local codes " +
-  'and the responsible engineer prevail over anything shown here.';
+  'and the responsible licensed engineer prevail over anything shown here.';
 
 const isoTime = z.iso.datetime({ offset: true, error: 'an ISO 8601 time with a zone' });
 

@@ -198,4 +198,13 @@ describe('the ACL rules as data', () => {
     expect(maySubscribe(radar!, T('rules', 'pool-radar'))).toBe(true);
     expect(maySubscribe(gw!, 'stillwell/v1/+/rule-events/+')).toBe(true);
   });
+  it('lets only the gateway ask a device for a backfill, and only that device answer', () => {
+    expect(mayPublish(gw!, T('backfill', 'pool-radar'))).toBe(true);
+    expect(mayPublish(radar!, T('backfill', 'pool-radar'))).toBe(false);
+    expect(maySubscribe(radar!, T('backfill', 'pool-radar'))).toBe(true);
+    expect(maySubscribe(radar!, T('backfill', 'inflow-gauge'))).toBe(false);
+    expect(mayPublish(radar!, T('backfill-reply', 'pool-radar'))).toBe(true);
+    expect(mayPublish(radar!, T('backfill-reply', 'inflow-gauge'))).toBe(false);
+    expect(maySubscribe(gw!, 'stillwell/v1/+/backfill-reply/+')).toBe(true);
+  });
 });

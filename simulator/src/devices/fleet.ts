@@ -6,7 +6,7 @@ import { channelReaders, type ChannelReader } from './channels.js';
 import { GateController } from './gate-controller.js';
 import { deviceClientId } from '../broker/accounts.js';
 import { DeviceLink } from './link.js';
-import { TelemetryDevice } from './telemetry-device.js';
+import { TelemetryDevice, type DeviceStats } from './telemetry-device.js';
 
 export interface FleetOptions {
   reservoir: ReservoirDefinition;
@@ -70,7 +70,10 @@ export class DeviceFleet {
           reportChangesAfterS: actuators.length ? MOVING_REPORT_S : undefined,
         };
         const random = createRandom(deriveSeed(seed, deviceId));
-        devices.push(new TelemetryDevice(deviceId, readers, link, ctx, random));
+        const device = new TelemetryDevice(deviceId, readers, link, ctx, random);
+        devices.push(device);
+        await link.subscribe(device.backfillTopic, (payload) => device.handleBackfill(payload));
+        link.onConnect(() => device.pump());
         if (actuators.length) {
           const controller = new GateController({
             reservoirId: reservoir.id,
@@ -98,6 +101,20 @@ export class DeviceFleet {
     // rules first: a gate an automatic rule starts is reported moving from this step on
     for (const c of this.controllers) c.onStep(state);
     for (const d of this.devices) d.onStep(state);
+  }
+
+  /** Sends what waits in every device's buffer (while the plant stands still, nothing else does). */
+  pump(): void {
+    for (const d of this.devices) d.pump();
+  }
+
+  /** Nothing waits in any device's buffer. */
+  get idle(): boolean {
+    return this.devices.every((d) => d.idle);
+  }
+
+  stats(): DeviceStats[] {
+    return this.devices.map((d) => d.stats());
   }
 
   get congested(): boolean {

@@ -52,6 +52,11 @@ export class DeviceLink {
     return true;
   }
 
+  /** Called on every (re)connect: what waited in the device's buffer can go now. */
+  onConnect(listener: () => void): void {
+    this.client.on('connect', listener);
+  }
+
   /** Subscribes at QoS 1 (mqtt.js renews the subscription after a reconnect with a clean session). */
   async subscribe(topic: string, onMessage: (payload: string) => void): Promise<void> {
     this.client.on('message', (t, payload) => {

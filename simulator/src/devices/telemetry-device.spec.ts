@@ -23,7 +23,8 @@ function run(
   });
   const messages: TelemetryMessage[] = [];
   const outbox = {
-    publish(_topic: string, payload: string) {
+    publish(topic: string, payload: string) {
+      if (topic.includes('/backfill-reply/')) return true;
       messages.push(telemetryMessageSchema.parse(JSON.parse(payload)));
       return true;
     },
@@ -118,6 +119,36 @@ describe('TelemetryDevice', () => {
     const after = messages.findIndex((m) => secondsOf(m) === 720);
     expect(messages[after]!.seq - messages[after - 1]!.seq).toBe(1 + device.lost);
     expect(device.lost).toBe(12);
+  });
+
+  it('sends readings again on a backfill request, with their seq and time, and answers', () => {
+    const { messages, device } = run('pool-radar', 600);
+    const produced = messages.length;
+    const reply = device.handleBackfill(
+      JSON.stringify({ requestId: 'r1', fromSeq: 2, toSeq: produced + 1 }),
+    );
+    expect(reply).toEqual({
+      requestId: 'r1',
+      fromSeq: 2,
+      toSeq: produced + 1,
+      resent: produced - 2,
+      unavailable: [{ fromSeq: produced, toSeq: produced + 1, reason: 'not-produced' }],
+    });
+    const again = messages.slice(produced);
+    expect(again).toEqual(messages.slice(2, produced));
+    expect(device.stats()).toMatchObject({ resent: produced - 2, backfillRequests: 1 });
+  });
+
+  it('ignores a malformed backfill request, naming the field', () => {
+    const lines: string[] = [];
+    const { device, messages } = run('pool-radar', 60);
+    const before = messages.length;
+    (device as unknown as { ctx: { log: (l: string) => void } }).ctx.log = (l) => lines.push(l);
+    expect(device.handleBackfill(JSON.stringify({ requestId: 'r', fromSeq: 5, toSeq: 1 }))).toBe(
+      null,
+    );
+    expect(messages).toHaveLength(before);
+    expect(lines.join()).toMatch(/toSeq/);
   });
 
   it('repeats its last value through a freeze, still marked good', () => {

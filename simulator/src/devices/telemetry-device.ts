@@ -156,7 +156,9 @@ export class TelemetryDevice {
     try {
       request = backfillRequestSchema.parse(JSON.parse(payload));
     } catch (error) {
-      this.ctx.log?.(`${this.deviceId}: ignored a bad backfill request: ${(error as Error).message}`);
+      this.ctx.log?.(
+        `${this.deviceId}: ignored a bad backfill request: ${(error as Error).message}`,
+      );
       return null;
     }
     this.backfillRequests++;

@@ -7,6 +7,7 @@ import { Forecasts1764806400000 } from './1764806400000-forecasts';
 import { Orders1764892800000 } from './1764892800000-orders';
 import { Retention1765065600000 } from './1765065600000-retention';
 import { JobLeases1765152000000 } from './1765152000000-job-leases';
+import { GapOutcomes1765238400000 } from './1765238400000-gap-outcomes';
 
 /** In order; TypeORM runs the ones not yet applied at start. */
 export const MIGRATIONS = [
@@ -19,4 +20,5 @@ export const MIGRATIONS = [
   Orders1764892800000,
   Retention1765065600000,
   JobLeases1765152000000,
+  GapOutcomes1765238400000,
 ];

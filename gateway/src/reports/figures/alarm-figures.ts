@@ -20,7 +20,12 @@ export interface AlarmLabel {
 export function alarmFigures(
   events: readonly AlarmEventFacts[],
   labels: ReadonlyMap<string, AlarmLabel>,
-): { raised: number; acknowledged: number; medianToAck: number | null; byCondition: AlarmFigure[] } {
+): {
+  raised: number;
+  acknowledged: number;
+  medianToAck: number | null;
+  byCondition: AlarmFigure[];
+} {
   const byCondition = new Map<string, AlarmEventFacts[]>();
   for (const e of [...events].sort((a, b) => a.t - b.t || a.id - b.id)) {
     const list = byCondition.get(e.conditionId) ?? [];

@@ -36,7 +36,11 @@ export function forecastChecks(
     let run: StoredRunSummary | undefined;
     for (const r of runs) {
       if (r.computedAt > mark || r.computedAt < mark - RUN_SEARCH_MS) continue;
-      if (!run || r.computedAt > run.computedAt || (r.computedAt === run.computedAt && r.id > run.id))
+      if (
+        !run ||
+        r.computedAt > run.computedAt ||
+        (r.computedAt === run.computedAt && r.id > run.id)
+      )
         run = r;
     }
     if (!run) return none;

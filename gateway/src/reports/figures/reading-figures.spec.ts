@@ -36,7 +36,12 @@ describe('reading figures', () => {
   });
 
   it('gives no rate with fewer than three readings or no time spread', () => {
-    expect(maxRateOfRise([{ t: start, v: 1 }, { t: start + 1000, v: 2 }])).toBeNull();
+    expect(
+      maxRateOfRise([
+        { t: start, v: 1 },
+        { t: start + 1000, v: 2 },
+      ]),
+    ).toBeNull();
     expect(maxRateOfRise([0, 1, 2].map(() => ({ t: start, v: 1 })))).toBeNull();
   });
 });

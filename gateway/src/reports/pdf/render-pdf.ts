@@ -1,8 +1,13 @@
+import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
+import type * as PdfMake from 'pdfmake';
 import type { TDocumentDefinitions } from 'pdfmake/interfaces';
-import pdfmake = require('pdfmake');
 
-const FONT_DIR = join(dirname(require.resolve('pdfmake/fonts/Roboto.js')), 'Roboto');
+// pdfmake's node entry is an instance whose methods sit on its prototype; the ES import helper
+// copies only own properties, so the module is loaded as it is.
+const load = createRequire(__filename);
+const pdfmake = load('pdfmake') as typeof PdfMake;
+const FONT_DIR = join(dirname(load.resolve('pdfmake/fonts/Roboto.js')), 'Roboto');
 
 let ready = false;
 /** Roboto from pdfmake's own files; no URL and no other file may be read by a document. */

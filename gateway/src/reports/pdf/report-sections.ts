@@ -7,7 +7,11 @@ export type TimeText = (ms: number) => string;
 const m = (v: number | null | undefined, digits = 2) => (v == null ? '—' : v.toFixed(digits));
 const head = (cells: string[]): TableCell[] => cells.map((text) => ({ text, style: 'th' }));
 
-export function table(widths: Array<string | number>, header: string[], rows: TableCell[][]): Content {
+export function table(
+  widths: Array<string | number>,
+  header: string[],
+  rows: TableCell[][],
+): Content {
   return {
     table: { headerRows: 1, widths, body: [head(header), ...rows], dontBreakRows: true },
     layout: 'lightHorizontalLines',
@@ -144,7 +148,9 @@ export function alarmSection(r: EventReport): Content[] {
     {
       text:
         `${a.raised} raised, ${a.acknowledged} acknowledged in the window` +
-        (a.medianToAck === null ? '.' : `; median time to acknowledge ${durationText(a.medianToAck)}.`),
+        (a.medianToAck === null
+          ? '.'
+          : `; median time to acknowledge ${durationText(a.medianToAck)}.`),
       style: 'body',
     },
     ...(rows.length

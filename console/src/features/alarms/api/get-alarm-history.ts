@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { alarmHistorySchema, type AlarmHistory } from '@stillwell/shared/alarms';
 import { apiGet } from '../../../lib/api-client';
-import { ALARM_POLL_MS, alarmKeys } from './keys';
+import { ALARM_REFETCH_MS, alarmKeys } from './keys';
 
 export function getAlarmHistory(
   reservoirId: string,
@@ -19,7 +19,7 @@ export function getAlarmHistoryQueryOptions(reservoirId: string, conditionId: st
   return queryOptions({
     queryKey: alarmKeys.history(reservoirId, conditionId),
     queryFn: ({ signal }) => getAlarmHistory(reservoirId, conditionId, signal),
-    refetchInterval: ALARM_POLL_MS,
+    refetchInterval: ALARM_REFETCH_MS,
   });
 }
 

@@ -2,6 +2,7 @@
 export const alarmKeys = {
   all: (reservoirId: string) => ['alarms', reservoirId] as const,
   list: (reservoirId: string) => ['alarms', reservoirId, 'list'] as const,
+  histories: (reservoirId: string) => ['alarms', reservoirId, 'history'] as const,
   history: (reservoirId: string, conditionId: string) =>
     ['alarms', reservoirId, 'history', conditionId] as const,
   performance: (reservoirId: string, hours: number) =>
@@ -9,7 +10,7 @@ export const alarmKeys = {
 };
 
 /**
- * The alarm list is asked for again this often (wall ms). The gateway pushes no alarm events over
- * the live socket yet; two seconds keeps a new alarm on screen within moments of being raised.
+ * The alarm list comes pushed over the live socket (use-live-alarms); this slow refetch (wall ms)
+ * is only the safety net for a push that was missed or a live connection that never came up.
  */
-export const ALARM_POLL_MS = 2000;
+export const ALARM_REFETCH_MS = 30_000;

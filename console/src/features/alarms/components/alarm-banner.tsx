@@ -3,13 +3,16 @@ import Box from '@mui/material/Box';
 import IconButton from '@mui/material/IconButton';
 import Link from '@mui/material/Link';
 import Tooltip from '@mui/material/Tooltip';
+import SyncProblemIcon from '@mui/icons-material/SyncProblem';
 import VolumeOffIcon from '@mui/icons-material/VolumeOff';
 import VolumeUpIcon from '@mui/icons-material/VolumeUp';
 import { PRIORITIES, type AlarmCounts } from '@stillwell/shared/alarms';
 import { ApiError } from '../../../lib/api-client';
 import { ink, signal } from '../../../theme';
 import { useAlarms } from '../api/get-alarms';
+import { ALARM_REFETCH_MS } from '../api/keys';
 import { useAlarmSound, useAudibleCue } from '../hooks/use-audible-cue';
+import { useLiveAlarms } from '../hooks/use-live-alarms';
 import { priorityLabel } from '../utils/alarm-text';
 
 export interface AlarmBannerProps {
@@ -23,9 +26,11 @@ const TONE = { immediate: signal.alarm, prompt: signal.caution, advisory: ink.pr
 /**
  * The alarm counts by priority, on every screen of a reservoir, with the unacknowledged ones
  * called out and the audible cue's switch. Someone whose role does not see alarms sees nothing.
+ * Being on every screen, it is also what keeps the reservoir's alarm list live.
  */
 export function AlarmBanner({ reservoirId, listHref }: AlarmBannerProps) {
   const alarms = useAlarms(reservoirId);
+  const liveIssue = useLiveAlarms(reservoirId);
   const [sound, setSound] = useAlarmSound();
   useAudibleCue(alarms.data?.alarms);
   if (alarms.error instanceof ApiError && alarms.error.status === 403) return null;
@@ -69,6 +74,18 @@ export function AlarmBanner({ reservoirId, listHref }: AlarmBannerProps) {
           </Box>
         )}
       </Link>
+      {liveIssue && (
+        <Tooltip
+          title={`${liveIssue}. The list is fetched again every ${ALARM_REFETCH_MS / 1000} s meanwhile.`}
+        >
+          <SyncProblemIcon
+            data-testid="alarm-live-issue"
+            aria-label={liveIssue}
+            fontSize="small"
+            sx={{ color: signal.caution }}
+          />
+        </Tooltip>
+      )}
       <Tooltip
         title={sound ? 'Sound for new immediate alarms: on' : 'Sound for new immediate alarms: off'}
       >

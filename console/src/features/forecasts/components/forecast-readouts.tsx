@@ -10,6 +10,7 @@ import { countdownOf } from '../utils/countdown';
 import { leadText, siteClockText } from '../utils/format-time';
 import { nextThreshold } from '../utils/next-threshold';
 import { ForecastCaution } from './forecast-caution';
+import { ThresholdOutlookList } from './threshold-outlook';
 import { TimeLeftCountdown } from './time-left-countdown';
 
 export interface ForecastReadoutsProps {
@@ -24,8 +25,8 @@ export interface ForecastReadoutsProps {
 
 /**
  * The forecast's numbers on the overview: time left to act (the countdown), the forecast peak and
- * when, the next threshold and how long until it, and the smallest opening that holds the target
- * if ordered now. Each carries its age, and the caution.
+ * when, the next threshold and how long until it (and the time to every threshold below), and the
+ * smallest opening that holds the target if ordered now. Each carries its age, and the caution.
  */
 export function ForecastReadouts({
   update,
@@ -121,6 +122,9 @@ export function ForecastReadouts({
           caption={hold ? `${capitalise(hold.message)}.` : 'no forecast'}
         />
       </Box>
+      {run && (
+        <ThresholdOutlookList run={run} siteNowMs={now} system={system} timeZone={timeZone} />
+      )}
       <Typography variant="body2" sx={{ color: 'text.secondary' }} data-testid="forecast-age">
         {run
           ? `Forecast of ${siteClockText(run.computedAtMs, timeZone)} (${leadText(countdown.ageS ?? 0)} ago, site time), ${run.inputs.ensemble.members} inflow scenarios; inflow ${run.inputs.inflow.method.replace('-', ' ')}: ${run.inputs.inflow.reason}.`

@@ -70,7 +70,7 @@ export function WhatIfGrid<R extends GridValidRowModel & { id: number }>({
     [problems, fieldOf],
   );
 
-  const all: GridColDef<R>[] = [
+  const editable: GridColDef<R>[] = [
     {
       field: '__row',
       headerName: '#',
@@ -80,6 +80,9 @@ export function WhatIfGrid<R extends GridValidRowModel & { id: number }>({
       valueGetter: (_v, row) => rowNumber.get(row.id),
     },
     ...columns.map((c) => ({ ...c, sortable: false, editable: !disabled && c.editable })),
+  ];
+  // the problem column only while there is something to say: an empty one crowds a narrow table
+  const problemColumn: GridColDef<R>[] = [
     {
       field: '__problem',
       headerName: 'Problem',
@@ -103,24 +106,25 @@ export function WhatIfGrid<R extends GridValidRowModel & { id: number }>({
           </Typography>
         ) : null,
     },
-    {
-      field: '__delete',
-      headerName: '',
-      width: 56,
-      sortable: false,
-      editable: false,
-      renderCell: (params) => (
-        <IconButton
-          size="small"
-          disabled={disabled}
-          aria-label={`Delete row ${rowNumber.get(params.row.id)}`}
-          onClick={() => onRowsChange(rows.filter((r) => r.id !== params.row.id))}
-        >
-          <DeleteOutlineIcon fontSize="small" />
-        </IconButton>
-      ),
-    },
   ];
+  const deleteColumn: GridColDef<R> = {
+    field: '__delete',
+    headerName: '',
+    width: 56,
+    sortable: false,
+    editable: false,
+    renderCell: (params) => (
+      <IconButton
+        size="small"
+        disabled={disabled}
+        aria-label={`Delete row ${rowNumber.get(params.row.id)}`}
+        onClick={() => onRowsChange(rows.filter((r) => r.id !== params.row.id))}
+      >
+        <DeleteOutlineIcon fontSize="small" />
+      </IconButton>
+    ),
+  };
+  const all = [...editable, ...(byRow.size > 0 ? problemColumn : []), deleteColumn];
 
   const goTo = (row: number) =>
     setPagination((m) => ({ ...m, page: Math.floor((row - 1) / m.pageSize) }));

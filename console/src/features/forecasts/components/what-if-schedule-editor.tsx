@@ -63,7 +63,7 @@ export function WhatIfScheduleEditor({
       {
         field: 'unit',
         headerName: '',
-        width: 60,
+        width: 84,
         sortable: false,
         valueGetter: (_v, row) => {
           const c = controls.find((x) => x.id === row.control);

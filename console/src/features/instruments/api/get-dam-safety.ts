@@ -2,8 +2,9 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { damSafetySchema, type DamSafety } from '@stillwell/shared/alarms';
 import { apiGet } from '../../../lib/api-client';
 
+export const damSafetyReservoirKey = (reservoirId: string) => ['dam-safety', reservoirId] as const;
 export const damSafetyKey = (reservoirId: string, days: number) =>
-  ['dam-safety', reservoirId, days] as const;
+  [...damSafetyReservoirKey(reservoirId), days] as const;
 
 /** Dam-safety readings come every few minutes of site time: fetching again this often is plenty. */
 export const DAM_SAFETY_POLL_MS = 15_000;

@@ -12,9 +12,17 @@ import { formatNumber } from '../../../lib/format';
 import { signal } from '../../../theme';
 import { useDamSafety } from '../api/get-dam-safety';
 import { PiezometerPanel, WeirPanel } from './instrument-panels';
+import { LimitsPanel } from './limits-panel';
+import type { RunConfirmed } from './limits-form';
 
 export interface DamSafetyScreenProps {
   definition: ReservoirDefinition;
+  /** the definition's version, which a change of limits is made against */
+  version: number;
+  /** may this person change the limits (the gateway decides in the end) */
+  canEditLimits: boolean;
+  withStepUp: RunConfirmed;
+  reloadDefinition: () => Promise<number | undefined>;
 }
 
 const RANGES = [1, 3, 7, 30];
@@ -22,9 +30,16 @@ const RANGES = [1, 3, 7, 30];
 /**
  * Seepage and foundation pressure against the pool and over time, with their limits and
  * baselines from the definition, and the water balance: the early signs of a dam changing its
- * behaviour. Limits and baselines change only through a new version of the definition.
+ * behaviour. Limits and baselines change only through a new version of the definition (the
+ * limits panel below, for the engineer).
  */
-export function DamSafetyScreen({ definition }: DamSafetyScreenProps) {
+export function DamSafetyScreen({
+  definition,
+  version,
+  canEditLimits,
+  withStepUp,
+  reloadDefinition,
+}: DamSafetyScreenProps) {
   const [days, setDays] = useState(7);
   const [system] = useUnitSystem();
   const q = useDamSafety(definition.id, days);
@@ -101,6 +116,14 @@ export function DamSafetyScreen({ definition }: DamSafetyScreenProps) {
           ))}
         </Box>
       )}
+      <LimitsPanel
+        definition={definition}
+        version={version}
+        system={system}
+        editable={canEditLimits}
+        withStepUp={withStepUp}
+        reloadDefinition={reloadDefinition}
+      />
     </Box>
   );
 }

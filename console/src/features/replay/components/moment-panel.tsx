@@ -2,7 +2,7 @@ import Box from '@mui/material/Box';
 import Chip from '@mui/material/Chip';
 import Typography from '@mui/material/Typography';
 import type { ReplayAlarmState, ReplayForecast, ReplaySeries } from '@stillwell/shared/replay';
-import type { UnitSystem } from '@stillwell/shared/units';
+import type { Quantity, UnitSystem } from '@stillwell/shared/units';
 import { formatQuantity, formatSiteTime } from '../../../lib/format';
 import { quantityOf } from '@stillwell/shared/units';
 import { signal } from '../../../theme';
@@ -15,6 +15,12 @@ export interface MomentPanelProps {
   forecast: ReplayForecast | null;
   system: UnitSystem;
   timeZone: string;
+}
+
+/** "206.99 m": a value in the chosen unit system, with its unit. */
+function withUnit(siValue: number, quantity: Quantity, system: UnitSystem): string {
+  const shown = formatQuantity(siValue, quantity, system);
+  return `${shown.text} ${shown.unitText}`;
 }
 
 const PRIORITY_INK = { immediate: signal.alarm, prompt: signal.caution, advisory: signal.doubt };
@@ -33,7 +39,7 @@ export function MomentPanel({
       <Box component="dl" sx={{ m: 0, display: 'grid', gridTemplateColumns: 'auto 1fr', gap: 0.5 }}>
         {series.map((s) => {
           const v = valueAt(s.t, s.v, cursorMs);
-          const shown = v === null ? null : formatQuantity(v, quantityOf(s.unit), system);
+          const shown = v === null ? null : withUnit(v, quantityOf(s.unit), system);
           return (
             <Box key={s.channel} sx={{ display: 'contents' }}>
               <Typography component="dt" color="text.secondary">
@@ -44,7 +50,7 @@ export function MomentPanel({
                 data-testid={`replay-value-${s.channel}`}
                 sx={{ m: 0, fontFamily: 'monospace', textAlign: 'right' }}
               >
-                {shown ? `${shown.text} ${shown.unitText}` : '—'}
+                {shown ?? '—'}
               </Typography>
             </Box>
           );
@@ -80,8 +86,8 @@ export function MomentPanel({
           <>
             <Typography sx={{ fontSize: 14 }}>
               Run of {formatSiteTime(forecast.computedAtMs, timeZone).time}: peak{' '}
-              {formatQuantity(forecast.peak.elevation, 'length', system).text} (p90{' '}
-              {formatQuantity(forecast.peak.p90, 'length', system).text}) at{' '}
+              {withUnit(forecast.peak.elevation, 'length', system)} (p90{' '}
+              {withUnit(forecast.peak.p90, 'length', system)}) at{' '}
               {formatSiteTime(forecast.peak.timeMs, timeZone).time}; time left:{' '}
               {forecast.timeLeftStatus}
             </Typography>

@@ -99,6 +99,8 @@ export function ReplayChart(props: ReplayChartProps) {
       height,
       tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), timeZone),
       cursor: { drag: { x: false, y: false } },
+      // the values at the replay's moment are in the panel beside; a hover legend of dashes misleads
+      legend: { live: false },
       scales: {
         x: { time: true, range: () => [latest.current.fromMs / 1000, latest.current.toMs / 1000] },
         flow: { range: (_u, _min, max) => [0, Number.isFinite(max) && max > 0 ? max * 1.3 : 1] },

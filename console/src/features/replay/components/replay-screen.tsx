@@ -18,6 +18,7 @@ import { usePlayback } from '../hooks/use-playback';
 import { buildChartData } from '../utils/chart-data';
 import { timeline } from '../utils/entry-text';
 import { lastAtOrBefore } from '../utils/playback';
+import { resolutionLabel } from '../utils/resolution-label';
 import { MomentPanel } from './moment-panel';
 import { ReplayChart } from './replay-chart';
 import { TimelineList } from './timeline-list';
@@ -98,8 +99,7 @@ export function ReplayScreen({ definition }: ReplayScreenProps) {
           aside={
             window.data && (
               <Typography variant="caption" color="text.secondary" data-testid="replay-resolution">
-                {window.data.resolution === 'raw' ? 'Raw readings' : 'One-minute aggregates'}:{' '}
-                {window.data.resolutionReason}
+                {resolutionLabel(window.data.resolution)}: {window.data.resolutionReason}
               </Typography>
             )
           }

@@ -62,6 +62,7 @@ export function TimelineList({
             key={item.key}
             data-current={isCurrent}
             data-testid={`replay-item-${item.key}`}
+            data-site-time-ms={item.siteTimeMs}
             sx={{
               borderLeft: `3px solid ${isCurrent ? accent : 'transparent'}`,
               bgcolor: isCurrent ? surface.raised : 'transparent',

@@ -63,7 +63,12 @@ export function CreateUserDialog({ withStepUp, onCreated, onClose }: CreateUserD
             autoComplete="off"
             {...form.register('displayName')}
             error={!!errors.displayName}
-            helperText={errors.displayName?.message ?? 'as the logbook will show it'}
+            // the shared schema's own wording is zod's default, which names no field
+            helperText={
+              errors.displayName
+                ? 'Full name: give 1 to 100 characters'
+                : 'as the logbook will show it'
+            }
           />
           <Controller
             control={form.control}
