@@ -8,7 +8,7 @@ import { BackupService, type TakenBackup } from './backup.service';
 
 /**
  * Backups contain every account and the whole record, so only administrators take or list them
- * (users.manage: the matrix has no action of its own for backups yet).
+ * (backups.manage).
  */
 @ApiTags('backups')
 @Controller('backups')
@@ -16,7 +16,7 @@ export class BackupController {
   constructor(private readonly backups: BackupService) {}
 
   @Get()
-  @Permission('users.manage')
+  @Permission('backups.manage')
   @ApiOkResponse({ description: 'The backups kept, newest first' })
   list(): BackupFile[] {
     return this.backups.list();
@@ -24,7 +24,7 @@ export class BackupController {
 
   @Post()
   @HttpCode(201)
-  @Permission('users.manage')
+  @Permission('backups.manage')
   @ApiOkResponse({ description: 'A backup taken now, while the gateway runs; in the logbook' })
   take(@CurrentPrincipal() p: Principal): Promise<TakenBackup> {
     return this.backups.take(actorOf(p));

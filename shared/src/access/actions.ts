@@ -32,6 +32,7 @@ export const ACTIONS = [
   'replay.read',
   'reports.create',
   'users.manage',
+  'backups.manage',
   'sessions.own',
 ] as const;
 export const actionSchema = z.enum(ACTIONS);
@@ -66,5 +67,6 @@ export const ACTION_DESCRIPTIONS: Readonly<Record<Action, string>> = {
   'replay.read': 'replay a past event',
   'reports.create': 'produce a report',
   'users.manage': 'create users, change roles, disable accounts, reset passwords',
+  'backups.manage': 'take an online backup of the database and list the backups',
   'sessions.own': 'see and end your own sessions, change your password and second factor',
 };

@@ -34,6 +34,7 @@ export const PERMISSIONS: Readonly<Record<Action, readonly Role[]>> = {
   'replay.read': ['operator', 'engineer', 'reviewer'],
   'reports.create': ['engineer', 'reviewer'],
   'users.manage': ['admin'],
+  'backups.manage': ['admin'],
   'sessions.own': ['operator', 'engineer', 'liaison', 'stakeholder', 'reviewer', 'admin'],
 };
 
