@@ -29,8 +29,14 @@ after(async () => {
 });
 
 /** Opens a console page and signs in through its own form, as a person does. */
-async function openAs(browser: BrowserContext, role: string, path: string): Promise<Page> {
+async function openAs(
+  browser: BrowserContext,
+  role: string,
+  path: string,
+  watch?: (page: Page) => void,
+): Promise<Page> {
   const page = await browser.newPage();
+  watch?.(page);
   await page.goto(`${product.url}${path}`);
   await signInThroughForm(page, role, demoPassword(product.output(), role));
   return page;
@@ -52,7 +58,15 @@ async function api<T>(role: string, path: string): Promise<T> {
 }
 
 test('an alarm shows in the banner and the list, is acknowledged with a comment, and the logbook has it', async () => {
-  const page = await openAs(operatorBrowser, 'operator', `/reservoirs/${RES}/overview`);
+  // alarm lists the gateway pushes to this page over the live socket
+  let pushed = 0;
+  const page = await openAs(operatorBrowser, 'operator', `/reservoirs/${RES}/overview`, (p) =>
+    p.on('websocket', (ws) =>
+      ws.on('framereceived', (f) => {
+        if (String(f.payload).includes('"alarm-list"')) pushed++;
+      }),
+    ),
+  );
   // the banner is on every screen: here on the overview first
   await page.waitForFunction(
     () =>
@@ -64,6 +78,7 @@ test('an alarm shows in the banner and the list, is acknowledged with a comment,
     undefined,
     { timeout: 60_000 },
   );
+  assert.ok(pushed >= 1, 'the alarm list should come pushed over the live socket');
   await page.getByTestId('alarm-banner').getByRole('link').click();
   const row = page.getByTestId('alarm-row-stale.rain-gauge');
   await row.waitFor({ timeout: 30_000 });
@@ -120,7 +135,7 @@ test('the engineer raises a seepage limit through the form, confirming identity,
   await saved.waitFor({ timeout: 30_000 });
   assert.match(
     (await saved.textContent()) ?? '',
-    new RegExp(`version ${next}: .*seepageWeirs\\.weir-left\\.maxFlow 0\\.015 → 0\\.0165`),
+    new RegExp(`version ${next}: Left abutment weir, alarm above: 15 → 16\\.5 l/s`),
   );
   const after = await api<Reservoir>('engineer', `/api/reservoirs/${RES}`);
   assert.equal(after.version, next);

@@ -1,5 +1,5 @@
 import assert from 'node:assert/strict';
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { after, before, test } from 'node:test';
 import type { BrowserContext, Page } from 'playwright-core';
 import { demoPassword, launchBrowser, signInThroughForm } from './support/browser.ts';
@@ -110,6 +110,7 @@ test('a reviewer produces the demo storm report in the console, watches it finis
   const pdf = await download(page, 'report-download-pdf');
   assert.equal(pdf.body.subarray(0, 5).toString('latin1'), '%PDF-');
   assert.match(pdf.name, /\.pdf$/);
+  writeFileSync(process.env.E2E_REPORTS_PDF ?? '/tmp/stillwell-report.pdf', pdf.body);
   const csv = await download(page, 'report-download-csv');
   const [header, first] = csv.body.toString('utf8').split('\r\n');
   assert.equal(header, 'channel,device_id,seq,time,time_ms,value,quality,received_at');

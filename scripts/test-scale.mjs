@@ -214,6 +214,31 @@ async function run() {
     );
     figures.push(`sequence gaps recorded: ${await sequenceGaps(db, RESERVOIR)}`);
   });
+
+  // the holder stops: it gives its leases up, and the other gateway takes every job over
+  const holds = (g) => (l) => l.holder.includes(`:${g.node.child.pid}:`);
+  const [first, second] = gateways;
+  const held = (await withDatabase(postgres.url, jobLeases)).filter(holds(first)).map((l) => l.job);
+  const stoppedAt = Date.now();
+  await first.node.stop();
+  const moved = await until(
+    () =>
+      withDatabase(postgres.url, async (db) => {
+        const leases = await jobLeases(db);
+        return held.every((job) => leases.some((l) => l.job === job && holds(second)(l)))
+          ? leases
+          : null;
+      }),
+    30_000,
+  );
+  figures.push(
+    `lease handover after gateway-a stopped: ${moved ? `${((Date.now() - stoppedAt) / 1000).toFixed(1)} s for ${held.length} jobs` : 'none within 30 s'}`,
+  );
+  check(
+    'when the holding gateway stops, the other takes its scheduled jobs over',
+    moved && moved.every(holds(second)),
+    JSON.stringify(moved ?? held),
+  );
 }
 
 let failure = null;

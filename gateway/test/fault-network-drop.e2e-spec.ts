@@ -1,4 +1,4 @@
-import { CuttableLink, sleep } from './support/processes';
+import { CuttableLink, sleep, waitFor } from './support/processes';
 import { Storm, storedTotal } from './support/storm';
 
 jest.setTimeout(300_000);
@@ -28,9 +28,19 @@ describe('fault: the network to the broker drops, then comes back', () => {
     try {
       const before = await storm.storedMoreThan(500);
       await link!.cut();
-      // what was on its way lands within a moment; after that nothing gets through
-      await sleep(1000);
-      const atCut = storedTotal(storm.databasePath);
+      // what was on its way lands within a moment (the count stops moving); then nothing gets through
+      const atCut = await waitFor(
+        'the count to settle after the cut',
+        async () => {
+          const first = storedTotal(storm!.databasePath);
+          await sleep(1000);
+          const second = storedTotal(storm!.databasePath);
+          if (second !== first) throw new Error(`${first} -> ${second}`);
+          return second;
+        },
+        30_000,
+        0,
+      );
       await sleep(DOWN_MS);
       expect(storedTotal(storm.databasePath)).toBe(atCut);
       await link!.mend();

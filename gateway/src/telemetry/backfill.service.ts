@@ -97,11 +97,6 @@ export class BackfillService implements OnApplicationBootstrap, OnModuleDestroy 
     this.byRequest.clear();
   }
 
-  /** Gaps being chased now, by id (for tests and status). */
-  get active(): number {
-    return this.chases.size;
-  }
-
   /** Takes up every open gap not chased yet. One scan at a time; a call during one runs after it. */
   resume(): Promise<void> {
     const run = async () => {

@@ -14,7 +14,12 @@ const START = Date.UTC(2030, 0, 1);
 function run(
   deviceId: string,
   seconds: number,
-  opts: { faults?: DeviceFault[]; seed?: number; act?: (p: ReservoirPlant) => void } = {},
+  opts: {
+    faults?: DeviceFault[];
+    seed?: number;
+    act?: (p: ReservoirPlant) => void;
+    log?: (line: string) => void;
+  } = {},
 ) {
   const plant = new ReservoirPlant({
     reservoir: DEMO_RESERVOIR,
@@ -36,6 +41,7 @@ function run(
     startMs: START,
     hourAt: (ms: number) => plant.hourAt(ms),
     reportChangesAfterS: deviceId === 'gate-controller' ? 10 : undefined,
+    log: opts.log,
   };
   const device = new TelemetryDevice(deviceId, readers, outbox, ctx, createRandom(opts.seed ?? 1));
   opts.act?.(plant);
@@ -141,9 +147,8 @@ describe('TelemetryDevice', () => {
 
   it('ignores a malformed backfill request, naming the field', () => {
     const lines: string[] = [];
-    const { device, messages } = run('pool-radar', 60);
+    const { device, messages } = run('pool-radar', 60, { log: (l) => lines.push(l) });
     const before = messages.length;
-    (device as unknown as { ctx: { log: (l: string) => void } }).ctx.log = (l) => lines.push(l);
     expect(device.handleBackfill(JSON.stringify({ requestId: 'r', fromSeq: 5, toSeq: 1 }))).toBe(
       null,
     );

@@ -9,6 +9,10 @@ export class GapOutcomes1765238400000 implements MigrationInterface {
     await q.query(`ALTER TABLE "sequence_gaps" ADD COLUMN "attempts" integer NOT NULL DEFAULT 0`);
     await q.query(`ALTER TABLE "sequence_gaps" ADD COLUMN "detail" text`);
     await q.query(`ALTER TABLE "sequence_gaps" ADD COLUMN "resolved_at" integer`);
+    // gaps recorded before the gateway could ask are not chased at the first start after this
+    await q.query(
+      `UPDATE "sequence_gaps" SET "state" = 'unanswered', "detail" = 'recorded before backfill requests'`,
+    );
     await q.query(`CREATE INDEX "ix_gaps_state" ON "sequence_gaps" ("state")`);
   }
 

@@ -2,10 +2,11 @@ import {
   PRIORITY_INFO,
   type AlarmEventKind,
   type AlarmView,
+  type ConditionKind,
   type DisplayState,
   type Priority,
 } from '@stillwell/shared/alarms';
-import { formatNumber, formatSiteTime } from '../../../lib/format';
+import { formatAge, formatNumber, formatSiteTime } from '../../../lib/format';
 
 /** ISA-18.2's state names, as the list shows them. */
 export const STATE_TEXT: Readonly<Record<DisplayState, string>> = {
@@ -38,9 +39,22 @@ export function siteStamp(ms: number | null, timeZone: string): string {
   return `${t.time} ${t.zone}, ${t.date}`;
 }
 
+/** Conditions whose value is a time in site seconds (how long silent, still, or left to act). */
+const SECONDS_KINDS: ReadonlySet<ConditionKind> = new Set([
+  'channel-stale',
+  'telemetry-silent',
+  'channel-frozen',
+  'time-left',
+]);
+
 /** The value against its limit in the alarm's own unit (SI), or nothing where there is none. */
-export function valueText(a: Pick<AlarmView, 'value' | 'limit' | 'unit'>): string {
+export function valueText(a: Pick<AlarmView, 'kind' | 'value' | 'limit' | 'unit'>): string {
   if (a.value === null) return '';
+  if (a.unit === null && SECONDS_KINDS.has(a.kind)) {
+    const v = formatAge(a.value);
+    return a.limit === null ? v : `${v} (limit ${formatAge(a.limit)})`;
+  }
+  if (a.kind === 'out-of-range-burst') return `${formatNumber(a.value, 0)} out of range`;
   // small flows (seepage) read in litres per second
   const litres = a.unit === 'm3/s' && Math.abs(a.value) < 1 && Math.abs(a.limit ?? 0) < 1;
   const scale = litres ? 1000 : 1;

@@ -69,6 +69,8 @@ const LimitInput = memo(function LimitInput({
   return (
     <TextField
       size="small"
+      // read-only limits read as values, not as fields waiting for input
+      variant={readOnly ? 'standard' : 'outlined'}
       label={f.label}
       value={value}
       onChange={(e) => onChange(f.key, e.target.value)}
@@ -77,6 +79,7 @@ const LimitInput = memo(function LimitInput({
       slotProps={{
         input: {
           readOnly,
+          ...(readOnly ? { disableUnderline: true } : {}),
           endAdornment: f.unit ? (
             <InputAdornment position="end">{f.unit}</InputAdornment>
           ) : undefined,

@@ -190,7 +190,7 @@ describe('the limits form', { timeout: 20_000 }, () => {
     });
     fireEvent.click(within(dialog).getByTestId('step-up-confirm'));
     const message = await screen.findByTestId('limits-saved');
-    expect(message.textContent).toMatch(/version 5: alarms\.rateOfRise\.limit 0\.3 → 0\.25/);
+    expect(message.textContent).toMatch(/version 5: Pool, rate-of-rise limit: 0\.3 → 0\.25 m\/h/);
     const order = calls.filter((c) => c.method === 'POST').map((c) => c.path);
     expect(order).toEqual(['/api/auth/sign-in', '/api/auth/step-up', `${base}/definition/limits`]);
     await waitFor(() =>
@@ -207,7 +207,9 @@ describe('the limits form', { timeout: 20_000 }, () => {
     });
     await signedInAs('operator');
     await openForm();
-    expect(screen.getByTestId('limits-form').textContent).toMatch(/Only the duty engineer can change these limits/);
+    expect(screen.getByTestId('limits-form').textContent).toMatch(
+      /Only the duty engineer can change these limits/,
+    );
     expect(screen.getByTestId('limit-weir.weir-left.maxFlow')).toHaveProperty('readOnly', true);
     expect(screen.queryByTestId('limits-save')).toBeNull();
     expect(screen.queryByTestId('limits-note')).toBeNull();

@@ -5,6 +5,7 @@ import type { LimitsChangeResult, ReservoirDefinition } from '@stillwell/shared/
 import type { UnitSystem } from '@stillwell/shared/units';
 import { Panel } from '../../../components/ui/panel';
 import { damSafetyReservoirKey } from '../api/get-dam-safety';
+import { describeChange, limitFields } from '../utils/limit-fields';
 import { LimitsForm, type RunConfirmed } from './limits-form';
 
 export interface LimitsPanelProps {
@@ -30,6 +31,7 @@ export function LimitsPanel({ reloadDefinition, ...form }: LimitsPanelProps) {
   const [opened, setOpened] = useState(0);
   const [awaiting, setAwaiting] = useState<number | null>(null);
   const [saved, setSaved] = useState<LimitsChangeResult | null>(null);
+  const fields = limitFields(form.definition, form.system);
   const arrived = awaiting !== null && form.version >= awaiting;
 
   useEffect(() => {
@@ -53,7 +55,7 @@ export function LimitsPanel({ reloadDefinition, ...form }: LimitsPanelProps) {
           sx={{ mb: 2 }}
         >
           Saved as definition version {saved.version}:{' '}
-          {saved.changes.map((c) => `${c.field} ${String(c.from)} → ${String(c.to)}`).join('; ')}
+          {saved.changes.map((c) => describeChange(fields, c)).join('; ')}
         </Alert>
       )}
       <LimitsForm

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { DEMO_RESERVOIR } from '@stillwell/shared/reservoirs';
 import { ApiError } from '../../../lib/api-client';
 import { buildLimitsChange } from './build-limits-change';
-import { initialValues, limitFields } from './limit-fields';
+import { describeChange, initialValues, limitFields } from './limit-fields';
 import { placeProblems, problemsOfError } from './limits-problems';
 
 const def = DEMO_RESERVOIR;
@@ -138,5 +138,24 @@ describe('the gateway’s refusals', () => {
       'alert.watch': 'below the riverbed',
     });
     expect(placed.general).toEqual(['baseVersion: expected an integer', 'something went wrong']);
+  });
+});
+
+describe('a saved change, as the form says it', () => {
+  it('names the field by its label and shows the values in the person’s units', () => {
+    const change = { field: 'seepageWeirs.weir-left.maxFlow', from: 0.015, to: 0.0165 };
+    expect(describeChange(fields, change)).toBe('Left abutment weir, alarm above: 15 → 16.5 l/s');
+    expect(
+      describeChange(limitFields(def, 'us'), {
+        field: 'thresholds.watch.elevation',
+        from: 205.5,
+        to: 205.8,
+      }),
+    ).toBe('Pool, watch level: 674.21 → 675.2 ft');
+  });
+
+  it('names a field the form does not show as the gateway does', () => {
+    const change = { field: 'alarms.seepage.onDelayS', from: 900, to: 600 };
+    expect(describeChange(fields, change)).toBe('alarms.seepage.onDelayS: 900 → 600');
   });
 });

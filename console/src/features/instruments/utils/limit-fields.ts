@@ -1,5 +1,5 @@
 import { alarmSettingsOf } from '@stillwell/shared/alarms';
-import type { ReservoirDefinition } from '@stillwell/shared/reservoirs';
+import type { LimitFieldChange, ReservoirDefinition } from '@stillwell/shared/reservoirs';
 import { convert, type UnitSystem } from '@stillwell/shared/units';
 import { levelUnit, seepageUnit } from './units';
 
@@ -14,6 +14,8 @@ export interface LimitField {
   group: string;
   label: string;
   unit: string;
+  /** decimals shown: enough to read and type, not the conversion's noise */
+  decimals: number;
   /** the value in the loaded definition, in its own units (m, m3/s, m/h, fraction) */
   si: number;
   toDisplay: (si: number) => number;
@@ -25,16 +27,21 @@ export interface LimitField {
 /** How a quantity shows in the form. */
 interface Shown {
   unit: string;
+  decimals: number;
   toDisplay: (si: number) => number;
   fromDisplay: (shown: number) => number;
 }
 
 const PERCENT: Shown = {
   unit: '%',
+  decimals: 1,
   toDisplay: (f: number) => f * 100,
   fromDisplay: (p: number) => p / 100,
 };
-const SAME: Omit<Shown, 'unit'> = { toDisplay: (v: number) => v, fromDisplay: (v: number) => v };
+const SAME: Pick<Shown, 'toDisplay' | 'fromDisplay'> = {
+  toDisplay: (v: number) => v,
+  fromDisplay: (v: number) => v,
+};
 
 /** Every limit the form offers, in the order it shows them. */
 export function limitFields(def: ReservoirDefinition, system: UnitSystem): LimitField[] {
@@ -43,15 +50,17 @@ export function limitFields(def: ReservoirDefinition, system: UnitSystem): Limit
   const rise = system === 'us' ? 'ft/h' : 'm/h';
   const level: Shown = {
     unit: lu,
+    decimals: system === 'us' ? 2 : 3,
     toDisplay: (m: number) => convert(m, 'm', lu),
     fromDisplay: (v: number) => convert(v, lu, 'm'),
   };
   const seepage: Shown = {
     unit: qu.label,
+    decimals: system === 'us' ? 1 : 2,
     toDisplay: (q: number) => convert(q, 'm3/s', qu.unit),
     fromDisplay: (v: number) => convert(v, qu.unit, 'm3/s'),
   };
-  const hours: Shown = { unit: 'h', ...SAME };
+  const hours: Shown = { unit: 'h', decimals: 2, ...SAME };
   const fields: LimitField[] = [];
   const pool = 'Pool';
 
@@ -74,6 +83,7 @@ export function limitFields(def: ReservoirDefinition, system: UnitSystem): Limit
     label: 'Rate-of-rise limit',
     si: alarmSettingsOf(def).rateOfRise.limit,
     unit: rise,
+    decimals: 3,
     toDisplay: (v) => convert(v, 'm/h', rise),
     fromDisplay: (v) => convert(v, rise, 'm/h'),
     paths: ['alarms.rateOfRise.limit'],
@@ -96,7 +106,7 @@ export function limitFields(def: ReservoirDefinition, system: UnitSystem): Limit
     add('baseline.referenceFlow', 'Baseline flow', b.referenceFlow, seepage);
     add('baseline.referencePool', 'Baseline at pool', b.referencePool, level);
     add('baseline.zeroFlowPool', 'No flow below pool', b.zeroFlowPool, level);
-    add('baseline.exponent', 'Exponent', b.exponent, { unit: '', ...SAME });
+    add('baseline.exponent', 'Exponent', b.exponent, { unit: '', decimals: 3, ...SAME });
     add('baseline.lagHours', 'Lag behind the pool', b.lagHours, hours);
     add('baseline.tolerance', 'Tolerance above baseline', b.tolerance, PERCENT);
     add('baseline.toleranceFlow', 'Tolerance flow', b.toleranceFlow, seepage);
@@ -122,13 +132,39 @@ export function limitFields(def: ReservoirDefinition, system: UnitSystem): Limit
   return fields;
 }
 
-/** A value as the form first shows it: enough digits to be exact, none of float's noise. */
+const displayText = (f: LimitField, si: number) =>
+  String(Number(f.toDisplay(si).toFixed(f.decimals)));
+
+/**
+ * A value as the form shows it. Left as shown, the stored value is sent back exactly, so the
+ * rounding of a converted unit (674.21 ft) never changes a limit by itself.
+ */
 export function shownValue(field: LimitField): string {
-  return String(Number(field.toDisplay(field.si).toPrecision(6)));
+  return displayText(field, field.si);
 }
 
 export type LimitValues = Record<string, string>;
 
 export function initialValues(fields: readonly LimitField[]): LimitValues {
   return Object.fromEntries(fields.map((f) => [f.key, shownValue(f)]));
+}
+
+/** The form key of a changed field as the gateway names it ("seepageWeirs.weir-left.maxFlow"). */
+function keyOfChange(field: string): string {
+  return field
+    .replace(/^seepageWeirs\./, 'weir.')
+    .replace(/^piezometers\./, 'piezometer.')
+    .replace(/^thresholds\.(.+)\.elevation$/, 'alert.$1')
+    .replace(/^alarms\.rateOfRise\.limit$/, 'rateOfRise.limit');
+}
+
+const shown = (f: LimitField, v: LimitFieldChange['from']) =>
+  typeof v === 'number' ? displayText(f, v) : String(v);
+
+/** A saved change in the form's words and units; a field the form does not show, as named. */
+export function describeChange(fields: readonly LimitField[], change: LimitFieldChange): string {
+  const f = fields.find((x) => x.key === keyOfChange(change.field));
+  if (!f) return `${change.field}: ${String(change.from)} → ${String(change.to)}`;
+  const unit = f.unit ? ` ${f.unit}` : '';
+  return `${f.group}, ${f.label.toLowerCase()}: ${shown(f, change.from)} → ${shown(f, change.to)}${unit}`;
 }

@@ -50,7 +50,7 @@ export function ReportDetails({ report: r, timeZone }: ReportDetailsProps) {
   const at = (ms: number | null) => (ms === null ? '–' : siteMoment(ms, timeZone));
   return (
     <Box
-      sx={{ display: 'grid', gap: 2, gridTemplateColumns: 'repeat(auto-fit, minmax(460px, 1fr))' }}
+      sx={{ display: 'grid', gap: 2, gridTemplateColumns: 'repeat(auto-fit, minmax(640px, 1fr))' }}
     >
       <Panel title="Forecasts against the actual peak">
         <Grid

@@ -6,6 +6,9 @@ import { useUnitSystem } from '../../../hooks/use-unit-system';
 import { formatQuantity } from '../../../lib/format';
 import { siteMoment } from '../utils/report-text';
 
+/** A peak this close to the window's end may not be the event's peak. */
+const AT_END_MS = 15 * 60_000;
+
 export interface ReportSummaryProps {
   report: EventReport;
   timeZone: string;
@@ -21,6 +24,8 @@ function shown(value: number | null, quantity: Quantity, system: UnitSystem, sig
 export function ReportSummary({ report, timeZone }: ReportSummaryProps) {
   const [system] = useUnitSystem();
   const s = report.summary;
+  // a peak at the very end of the window is where the window stopped, not where the pool did
+  const cutOff = (p: Peak | null) => p !== null && report.to - p.t <= AT_END_MS;
   const peak = (label: string, p: Peak | null, quantity: Quantity, testId: string) => {
     const v = shown(p?.value ?? null, quantity, system);
     return (
@@ -29,7 +34,11 @@ export function ReportSummary({ report, timeZone }: ReportSummaryProps) {
         value={v.text}
         unit={v.unit}
         valueTestId={testId}
-        caption={p ? `${siteMoment(p.t, timeZone)} · ${p.channel}` : 'No readings in the window'}
+        caption={
+          p
+            ? `${siteMoment(p.t, timeZone)} · ${p.channel}${cutOff(p) ? " · at the window's end: the peak may come later" : ''}`
+            : 'No readings in the window'
+        }
       />
     );
   };

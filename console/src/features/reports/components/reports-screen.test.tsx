@@ -47,7 +47,8 @@ const report: EventReport = eventReportSchema.parse({
     outflowChannel: 'outflow',
     peakPool: { channel: 'pool.radar', value: 208.4321, t: FROM + 30 * HOUR },
     peakInflow: { channel: 'inflow', value: 1234.56, t: FROM + 26 * HOUR },
-    peakOutflow: { channel: 'outflow', value: 610.04, t: FROM + 31 * HOUR },
+    // the outflow's highest reading is the window's last: the window stopped, not the outflow
+    peakOutflow: { channel: 'outflow', value: 610.04, t: TO - 5 * 60_000 },
     maxRateOfRise: { value: 0.21, t: FROM + 20 * HOUR },
     readingCount: 1000,
     suspectCount: 0,
@@ -142,6 +143,9 @@ describe('the reports screen', () => {
     expect((await screen.findByTestId('report-peak-pool')).textContent).toBe('208.43');
     expect(screen.getByTestId('report-peak-inflow').textContent).toBe('1,234.6');
     expect(screen.getByTestId('report-max-rise').textContent).toBe('+0.210');
+    const laterNote = /at the window's end: the peak may come later/;
+    expect(screen.getByRole('region', { name: 'Peak outflow' }).textContent).toMatch(laterNote);
+    expect(screen.getByRole('region', { name: 'Peak pool' }).textContent).not.toMatch(laterNote);
     expect(screen.getByTestId('report-head-hash').textContent).toContain('ab'.repeat(32));
     expect(screen.getByTestId('report-alarm-counts').textContent).toMatch(
       /^3 raised, 2 acknowledged/,
