@@ -9,19 +9,17 @@ import {
 } from '@nestjs/websockets';
 import type { Namespace, Socket } from 'socket.io';
 import type { Subscription } from 'rxjs';
-import {
-  LIVE_EVENTS,
-  LIVE_NAMESPACE,
-  describeIssues,
-  subscribeRequestSchema,
-  type SubscribeAck,
-} from '@stillwell/shared/telemetry';
+import { LIVE_EVENTS, LIVE_NAMESPACE, type SubscribeAck } from '@stillwell/shared/telemetry';
+import { joinReservoirRoom, leaveReservoirRoom, type ReservoirRoom } from '../auth/live-rooms';
 import { LiveSocketAuth } from '../auth/live-socket-auth';
 import { ReservoirsService } from '../reservoirs/reservoirs.service';
 import { IngestionService } from './ingestion.service';
 import { StatusService } from './status.service';
 
-const room = (reservoirId: string) => `reservoir:${reservoirId}`;
+const readingsRoom: ReservoirRoom = {
+  action: 'telemetry.read',
+  room: (reservoirId) => `reservoir:${reservoirId}`,
+};
 
 /** Live push: a console joins a reservoir's room and gets its readings as stored and its status. */
 @WebSocketGateway({ namespace: LIVE_NAMESPACE })
@@ -45,10 +43,10 @@ export class LiveGateway implements OnGatewayInit, OnModuleDestroy {
     this.subscriptions.push(
       // local: every gateway hears every stored batch (StoredFeed) and pushes to its own consoles
       this.ingestion.stored$.subscribe(({ reservoirId, readings }) =>
-        this.server.local.to(room(reservoirId)).emit(LIVE_EVENTS.readings, readings),
+        this.server.local.to(readingsRoom.room(reservoirId)).emit(LIVE_EVENTS.readings, readings),
       ),
       this.status.status$.subscribe((s) =>
-        this.server.local.to(room(s.reservoirId)).emit(LIVE_EVENTS.status, s),
+        this.server.local.to(readingsRoom.room(s.reservoirId)).emit(LIVE_EVENTS.status, s),
       ),
     );
   }
@@ -62,27 +60,24 @@ export class LiveGateway implements OnGatewayInit, OnModuleDestroy {
     @ConnectedSocket() socket: Socket,
     @MessageBody() body: unknown,
   ): Promise<SubscribeAck> {
-    const parsed = subscribeRequestSchema.safeParse(body);
-    if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
-    const { reservoirId } = parsed.data;
-    const refusal = await this.access.refusal(socket, 'telemetry.read');
-    if (refusal) return { ok: false, error: refusal };
-    if (!this.reservoirs.find(reservoirId))
-      return { ok: false, error: `No reservoir "${reservoirId}"` };
-    await socket.join(room(reservoirId));
-    socket.emit(LIVE_EVENTS.status, this.status.status(reservoirId));
-    this.logger.debug(`${socket.id} follows ${reservoirId}`);
-    return { ok: true };
+    const { ack, joined } = await joinReservoirRoom(
+      this.access,
+      this.reservoirs,
+      readingsRoom,
+      socket,
+      body,
+    );
+    if (!joined) return ack;
+    socket.emit(LIVE_EVENTS.status, this.status.status(joined));
+    this.logger.debug(`${socket.id} follows ${joined}`);
+    return ack;
   }
 
   @SubscribeMessage(LIVE_EVENTS.unsubscribe)
-  async unsubscribe(
+  unsubscribe(
     @ConnectedSocket() socket: Socket,
     @MessageBody() body: unknown,
   ): Promise<SubscribeAck> {
-    const parsed = subscribeRequestSchema.safeParse(body);
-    if (!parsed.success) return { ok: false, error: describeIssues(parsed.error) };
-    await socket.leave(room(parsed.data.reservoirId));
-    return { ok: true };
+    return leaveReservoirRoom(readingsRoom, socket, body);
   }
 }
