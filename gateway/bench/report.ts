@@ -89,8 +89,9 @@ async function runJob(
   from: number,
   to: number,
   formats: ReportJob['formats'],
-): Promise<{ ms: number; job: ReportJob; updates: number }> {
+): Promise<{ ms: number; cpuMs: number; job: ReportJob; updates: number }> {
   const started = performance.now();
+  const cpu = process.cpuUsage();
   const created = jobs.create(RES, { from, to, formats }, 'bench');
   // progress as a poller would see it, every 100 ms, while the job runs
   let updates = 0;
@@ -104,7 +105,8 @@ async function runJob(
   clearInterval(poll);
   const job = jobs.get(RES, created.id, 'bench');
   if (job.stage !== 'done') throw new Error(`report ${job.stage}: ${job.error}`);
-  return { ms: performance.now() - started, job, updates };
+  const used = process.cpuUsage(cpu);
+  return { ms: performance.now() - started, cpuMs: (used.user + used.system) / 1000, job, updates };
 }
 
 async function main(): Promise<void> {
@@ -116,7 +118,7 @@ async function main(): Promise<void> {
   const dataSource = new DataSource({
     type: 'better-sqlite3',
     database: file,
-    entities: RECORD_ENTITIES.map(([path, name]) => load(path)[name]),
+    entities: RECORD_ENTITIES.map(([path, name]) => load(path)[name] as new () => unknown),
     migrations: MIGRATIONS,
     migrationsRun: true,
   });
@@ -163,13 +165,18 @@ async function main(): Promise<void> {
   );
   const jobs = new ReportJobs(builder, reservoirs);
 
-  const report = await runJob(jobs, T0, T0 + SPAN_MS, ['pdf', 'json']);
-  const csvTo = T0 + CSV_DAYS * 24 * HOUR;
-  const csv = await runJob(jobs, T0, csvTo, ['csv']);
+  let report: Awaited<ReturnType<typeof runJob>>;
+  let csv: Awaited<ReturnType<typeof runJob>>;
+  try {
+    report = await runJob(jobs, T0, T0 + SPAN_MS, ['pdf', 'json']);
+    csv = await runJob(jobs, T0, T0 + CSV_DAYS * 24 * HOUR, ['csv']);
+  } finally {
+    // the jobs' folders and the bench file go, whatever happened
+    jobs.onModuleDestroy();
+    await dataSource.destroy();
+    rmSync(dir, { recursive: true, force: true });
+  }
   const csvRows = csv.job.rows?.total ?? 0;
-  jobs.onModuleDestroy();
-  await dataSource.destroy();
-  rmSync(dir, { recursive: true, force: true });
 
   const reportS = report.ms / 1000;
   const results = [
@@ -179,6 +186,14 @@ async function main(): Promise<void> {
       unit: 's',
       target: '<= 5',
       ok: reportS <= 5,
+    },
+    {
+      // on a shared machine the wall time includes waiting for a core; this is the work itself
+      name: 'report: CPU time of that job (user + system)',
+      value: +(report.cpuMs / 1000).toFixed(2),
+      unit: 's',
+      target: '-',
+      ok: true,
     },
     {
       name: 'report: progress updates a poller saw (every 100 ms) during that job',
@@ -194,14 +209,15 @@ async function main(): Promise<void> {
       target: '-',
       ok: true,
     },
-    {
+  ];
+  if (!reuse)
+    results.push({
       name: `report: bench file built (${sizeMb.toFixed(0)} MiB)`,
       value: Math.round(built.rows / built.seconds),
       unit: 'rows/s',
       target: '-',
       ok: true,
-    },
-  ];
+    });
   if (json) console.log(JSON.stringify({ suite: 'report', results }));
   else
     for (const r of results)

@@ -92,9 +92,11 @@ export function svgChart(spec: ChartSpec): string {
   const ticks = 6;
   for (let i = 0; i <= ticks; i += 1) {
     const t = spec.from + (span * i) / ticks;
+    // the end labels are anchored inward so that neither is cut at the chart's edge
+    const anchor = i === 0 ? 'start' : i === ticks ? 'end' : 'middle';
     out.push(
       `<line x1="${f(x(t))}" x2="${f(x(t))}" y1="${PAD.top + ih}" y2="${PAD.top + ih + 3}" stroke="#757575" stroke-width="0.5"/>`,
-      `<text x="${f(x(t))}" y="${PAD.top + ih + 13}" font-size="7" text-anchor="middle" fill="#424242">${esc(spec.timeLabel(t))}</text>`,
+      `<text x="${f(x(t))}" y="${PAD.top + ih + 13}" font-size="7" text-anchor="${anchor}" fill="#424242">${esc(spec.timeLabel(t))}</text>`,
     );
   }
   for (const r of spec.rules ?? []) {

@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import Alert from '@mui/material/Alert';
 import { useQueryClient } from '@tanstack/react-query';
 import type { LimitsChangeResult, ReservoirDefinition } from '@stillwell/shared/reservoirs';
@@ -32,13 +32,11 @@ export function LimitsPanel({ reloadDefinition, ...form }: LimitsPanelProps) {
   const [awaiting, setAwaiting] = useState<number | null>(null);
   const [saved, setSaved] = useState<LimitsChangeResult | null>(null);
   const fields = limitFields(form.definition, form.system);
-  const arrived = awaiting !== null && form.version >= awaiting;
-
-  useEffect(() => {
-    if (!arrived) return;
+  // the version waited for has come: open the form again on it (state adjusted while rendering)
+  if (awaiting !== null && form.version >= awaiting) {
     setAwaiting(null);
     setOpened((n) => n + 1);
-  }, [arrived]);
+  }
 
   const reopenAt = async (version: number) => {
     setAwaiting(version);
