@@ -148,6 +148,11 @@ async function run() {
   );
   const final = stored ?? (await withDatabase(postgres.url, (db) => storedReadings(db, RESERVOIR)));
   await sleep(3000); // the last live pushes and logbook entries on their way
+  // held devices still answer backfill requests: stopped, they write their final counts and
+  // send no more, so the gateways' counters and the devices' can be compared
+  await sim.stop('SIGINT');
+  await sleep(1000);
+  const finalStats = JSON.parse(readFileSync(statsFile, 'utf8'));
   const counters = await Promise.all(gateways.map((g) => countersOf(g.url, token)));
   await withDatabase(postgres.url, async (db) => {
     const rows = final.perDevice.reduce((n, d) => n + d.rows, 0);
@@ -168,7 +173,7 @@ async function run() {
     const [a, b] = counters;
     // each message the broker delivered went to one gateway of the group: the originals and the
     // devices' resends on backfill requests, no more (without the group each would get them all)
-    const resent = stats.devices.reduce((n, d) => n + d.resent, 0);
+    const resent = finalStats.devices.reduce((n, d) => n + d.resent, 0);
     figures.push(
       `ingested by gateway-a: ${a.stored}, by gateway-b: ${b.stored}; messages received ${a.received} + ${b.received} = ${expectedTotal} sent + ${resent} resent on backfill requests (repeats ${a.repeats} + ${b.repeats}, late ${a.late} + ${b.late})`,
     );

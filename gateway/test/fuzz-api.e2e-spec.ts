@@ -42,6 +42,7 @@ const UNDOCUMENTED: Record<string, z.ZodType> = {
 
 /** Routes that read no body at all (an action on the resource named in the path). */
 const NO_BODY = new Set([
+  'post /api/backups',
   'post /api/auth/refresh',
   'post /api/auth/sign-out',
   'post /api/auth/totp/begin',

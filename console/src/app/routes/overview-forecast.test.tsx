@@ -56,6 +56,23 @@ describe('overview with the forecast', () => {
     );
   });
 
+  it('lists the time to each threshold, lowest first, with those already passed marked', async () => {
+    stubGateway();
+    renderApp(OVERVIEW);
+    const outlook = await screen.findByTestId('threshold-outlook');
+    const items = within(outlook)
+      .getAllByTestId(/^threshold-outlook-/)
+      .map((el) => [el.dataset.testid, el.dataset.tone, el.textContent]);
+    expect(items.map(([id, tone]) => [id, tone])).toEqual([
+      ['threshold-outlook-watch', 'above'],
+      ['threshold-outlook-normal-max', 'above'],
+      ['threshold-outlook-aux-spillway', 'ahead'],
+      ['threshold-outlook-freeboard-limit', 'clear'],
+    ]);
+    expect(items[2]![2]).toMatch(/in 20 h 00 min · 10:00 GMT.*80 % of the ensemble/);
+    expect(items[3]![2]).toMatch(/not reached/);
+  });
+
   it('draws the band and the median ahead of now, with the x axis reaching past now', async () => {
     stubGateway();
     renderApp(OVERVIEW);

@@ -78,8 +78,12 @@ export function ThresholdOutlookList({
               sx={{ color: TONE_COLOR[tone], fontWeight: tone === 'clear' ? 400 : 500 }}
             >
               {text}
-              {tone === 'ahead' && ` · ${Math.round(t.probability * 100)} % of the ensemble`}
             </Typography>
+            {tone === 'ahead' && (
+              <Typography variant="caption" component="div" sx={{ color: 'text.secondary' }}>
+                {Math.round(t.probability * 100)} % of the ensemble reach it
+              </Typography>
+            )}
           </Box>
         );
       })}

@@ -74,7 +74,7 @@ export function WhatIfGrid<R extends GridValidRowModel & { id: number }>({
     {
       field: '__row',
       headerName: '#',
-      width: 56,
+      width: 48,
       sortable: false,
       editable: false,
       valueGetter: (_v, row) => rowNumber.get(row.id),

@@ -44,12 +44,14 @@ export function WhatIfScheduleEditor({
 }: WhatIfScheduleEditorProps) {
   const columns = useMemo<GridColDef<ScheduleGridRow>[]>(
     () => [
-      { field: 'hour', headerName: 'Time (h)', type: 'number', width: 90, editable: true },
+      { field: 'hour', headerName: 'Hour', type: 'number', width: 76, editable: true },
       {
         field: 'control',
         headerName: 'Gate / outlet',
         type: 'singleSelect',
-        width: 150,
+        // takes what the narrow panel leaves, so the delete button stays in view
+        flex: 1,
+        minWidth: 96,
         editable: true,
         valueOptions: controls.map((c) => ({ value: c.id, label: c.id })),
       },
@@ -57,13 +59,13 @@ export function WhatIfScheduleEditor({
         field: 'target',
         headerName: 'Opening',
         type: 'number',
-        width: 90,
+        width: 80,
         editable: true,
       },
       {
         field: 'unit',
         headerName: '',
-        width: 84,
+        width: 76,
         sortable: false,
         valueGetter: (_v, row) => {
           const c = controls.find((x) => x.id === row.control);
