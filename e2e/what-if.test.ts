@@ -36,7 +36,7 @@ test('the operator uploads a hydrograph, routes it under two schedules and compa
   await screen.waitFor({ timeout: 30_000 });
   assert.match(
     (await screen.getByTestId('forecast-caution').first().textContent()) ?? '',
-    /Decision support only.*emergency action plan.*responsible engineer prevail/,
+    /Decision support only.*emergency action plan, local codes and the responsible licensed engineer prevail/,
   );
 
   // a file with a bad row is refused whole, naming the row; the table keeps what it had

@@ -10,12 +10,13 @@ import {
   Query,
 } from '@nestjs/common';
 import { ApiBadRequestResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
-import type {
-  CompareResponse,
-  ForecastRun,
-  ForecastRunList,
-  ForecastUpdate,
-  WhatIfResponse,
+import {
+  FORECAST_CAUTION,
+  type CompareResponse,
+  type ForecastRun,
+  type ForecastRunList,
+  type ForecastUpdate,
+  type WhatIfResponse,
 } from '@stillwell/shared/forecasts';
 import { SiteClockService } from '../clock/site-clock.service';
 import { Permission } from '../common/decorators/permission.decorator';
@@ -25,8 +26,7 @@ import { ForecastsService } from './forecasts.service';
 import { WhatIfService } from './what-if.service';
 
 /** Said in the API document beside every forecast route. */
-const SUPPORT =
-  "Decision support only: the dam's approved operating rules, its emergency action plan and the responsible engineer prevail.";
+const SUPPORT = FORECAST_CAUTION;
 const DEFAULT_RANGE_MS = 6 * 3600_000;
 
 @ApiTags('forecasts')

@@ -21,6 +21,11 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
   private readonly handlers: Array<{ filter: string; handler: MqttHandler }> = [];
   private readonly group: string | undefined;
 
+  /** Set when several gateways share the ingestion: each then sees only its share of a device's seqs. */
+  get sharedGroup(): string | undefined {
+    return this.group;
+  }
+
   constructor(private readonly config: ConfigService<Env, true>) {
     this.group = config.get('MQTT_SHARED_GROUP', { infer: true });
   }

@@ -2,6 +2,7 @@ import { Controller, Get, Param, ParseIntPipe, Query } from '@nestjs/common';
 import { ApiBadRequestResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   REPLAY_BUCKETS,
+  REPLAY_FORECAST_CAUTION,
   type ReplayEntryPage,
   type ReplayEventList,
   type ReplayForecast,
@@ -84,8 +85,7 @@ export class ReplayController {
   @Permission('replay.read')
   @ApiOperation({
     summary: 'The forecast band of one stored run, as operators saw it',
-    description:
-      "Decision support only: the dam's approved operating rules, its emergency action plan and the responsible engineer prevail.",
+    description: REPLAY_FORECAST_CAUTION,
   })
   @ApiOkResponse({ description: 'A ReplayForecast' })
   forecast(

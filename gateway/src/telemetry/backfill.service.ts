@@ -111,7 +111,9 @@ export class BackfillService implements OnApplicationBootstrap, OnModuleDestroy 
         if (this.chases.has(gap.id)) continue;
         const chase: Chase = { gap, cursor: gap.fromSeq, tries: 0, rounds: 0, runs: [] };
         this.chases.set(gap.id, chase);
-        this.ask(chase);
+        // in a shared group a "gap" is mostly the share another gateway stored: look before asking
+        if (this.mqtt.sharedGroup) this.arm(chase, () => this.onSilence(chase));
+        else this.ask(chase);
       }
     };
     const next = (this.resuming ?? Promise.resolve()).then(run, run);

@@ -6,10 +6,19 @@ import { THRESHOLD_KINDS } from '../reservoirs/definition.js';
  * site time unless named ...S (seconds). Elevations m, flows m3/s.
  */
 
+/** Who decides, whatever the software says: one wording for every caution. */
+export const PREVAILING_AUTHORITY =
+  "the dam's approved operating rules, its emergency action plan, local codes and the responsible " +
+  'licensed engineer';
+
 /** Said wherever a forecast is shown or served. */
 export const FORECAST_CAUTION =
-  "Decision support only: a model forecast from measurements that can be wrong. The dam's approved " +
-  'operating rules, its emergency action plan and the responsible engineer prevail.';
+  'Decision support only: a model forecast from measurements that can be wrong. ' +
+  `${capitalise(PREVAILING_AUTHORITY)} prevail.`;
+
+function capitalise(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
 
 export const FORECAST_TRIGGERS = ['schedule', 'telemetry', 'definition', 'startup'] as const;
 export type ForecastTrigger = (typeof FORECAST_TRIGGERS)[number];

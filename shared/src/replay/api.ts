@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PREVAILING_AUTHORITY } from '../forecasts/api.js';
 import { alarmEventSchema } from '../alarms/api.js';
 import { DISPLAY_STATES } from '../alarms/lifecycle.js';
 import { prioritySchema } from '../alarms/priorities.js';
@@ -14,8 +15,7 @@ import { UNITS } from '../units/units.js';
 /** Said wherever a replayed forecast is shown: it is what operators saw, not a verdict. */
 export const REPLAY_FORECAST_CAUTION =
   'The forecast as it stood at that moment, from the stored run: decision support then, not a ' +
-  "measurement. The dam's approved operating rules, its emergency action plan and the responsible " +
-  'engineer prevailed.';
+  `measurement; ${PREVAILING_AUTHORITY} prevailed.`;
 
 /**
  * raw: stored readings; minute: one-minute aggregates (min and max of each minute); hour: hourly

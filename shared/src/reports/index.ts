@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PREVAILING_AUTHORITY } from '../forecasts/api.js';
 
 /**
  * Event reports: the request for a window, the job that builds it, and the report's figures as
@@ -17,8 +18,7 @@ export type ReportFormat = (typeof REPORT_FORMATS)[number];
  */
 export const REPORT_CAUTION =
   'This report is decision support drawn from the stored record. Forecasts in it were estimates, ' +
-  "never certainty. The dam's approved operating rules, its emergency action plan, local codes " +
-  'and the responsible licensed engineer prevail over anything shown here.';
+  `never certainty; ${PREVAILING_AUTHORITY} prevail over anything shown here.`;
 
 const isoTime = z.iso.datetime({ offset: true, error: 'an ISO 8601 time with a zone' });
 

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { downsampleMinMax, type SeriesPoint } from './downsample';
+import { downsampleMinMax, type SeriesPoint } from './downsample.js';
 
 const series = fc
   .array(fc.double({ min: -1e6, max: 1e6, noNaN: true }), { minLength: 1, maxLength: 2000 })

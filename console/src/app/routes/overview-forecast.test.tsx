@@ -52,7 +52,7 @@ describe('overview with the forecast', () => {
     expect(screen.getByTestId('next-threshold').textContent).toBe('20 h 00 min');
     expect(screen.getByTestId('hold-now').textContent).toBe('3.60');
     expect(screen.getByTestId('forecast-caution').textContent).toMatch(
-      /Decision support only.*emergency action plan.*responsible engineer prevail/,
+      /Decision support only.*emergency action plan, local codes and the responsible licensed engineer prevail/,
     );
   });
 

@@ -9,6 +9,7 @@ import Toolbar from '@mui/material/Toolbar';
 import Tooltip from '@mui/material/Tooltip';
 import Typography from '@mui/material/Typography';
 import { can, ROLE_LABELS, type Action, type Me } from '@stillwell/shared/access';
+import { PREVAILING_AUTHORITY } from '@stillwell/shared/forecasts';
 import { paths, RESERVOIR_SCREENS } from '../../config/paths';
 import { signOut, useSession } from '../../lib/auth-session';
 import { accent, ink } from '../../theme';
@@ -149,8 +150,7 @@ export function ConsoleShell({
         sx={{ px: 2, py: 1, borderTop: 1, borderColor: 'divider', color: 'text.secondary' }}
       >
         <Typography variant="body2" data-testid="decision-support-note">
-          Decision support only: the dam&apos;s approved operating rules, its emergency action plan
-          and the responsible engineer prevail.
+          Decision support only: {PREVAILING_AUTHORITY} prevail.
         </Typography>
       </Box>
     </Box>
