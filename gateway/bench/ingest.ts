@@ -34,7 +34,7 @@ function startProcess(
   args: string[],
   env: Record<string, string>,
   ready: RegExp,
-): Promise<ChildProcess> {
+): Promise<ChildProcess & { out: () => string }> {
   const child = spawn(process.execPath, args, {
     env: { ...process.env, ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -43,7 +43,7 @@ function startProcess(
     let out = '';
     const onData = (d: Buffer) => {
       out += d.toString();
-      if (ready.test(out)) resolve(child);
+      if (ready.test(out)) resolve(Object.assign(child, { out: () => out }));
     };
     child.stdout!.on('data', onData);
     child.stderr!.on('data', onData);
@@ -84,10 +84,24 @@ async function main() {
     /Stillwell is on/,
   );
   const base = `http://127.0.0.1:${httpPort}`;
-  const counters = async () =>
-    (await (await fetch(`${base}/api/telemetry/counters`)).json()) as { stored: number };
   while ((await (await fetch(`${base}/api/health`)).status) !== 200)
     await new Promise((r) => setTimeout(r, 100));
+  // demo mode prints this start's passwords: the operator's, read from the gateway's own output
+  const password = /^\s+operator\s+(\S+)/m.exec(gateway.out())?.[1];
+  if (!password) throw new Error('no demo operator password in the gateway output');
+  const signIn = await fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ username: 'operator', password }),
+  });
+  const { accessToken } = (await signIn.json()) as { accessToken: string };
+  const counters = async () => {
+    const res = await fetch(`${base}/api/telemetry/counters`, {
+      headers: { Authorization: `Bearer ${accessToken}` },
+    });
+    if (!res.ok) throw new Error(`counters: ${res.status}`);
+    return (await res.json()) as { stored: number };
+  };
 
   const client: MqttClient = await connectAsync(`mqtt://127.0.0.1:${mqttPort}`, {
     protocolVersion: 4,
@@ -132,7 +146,10 @@ async function main() {
   const gatewayRate = stored / elapsedS;
 
   // 2. steady 1,000 readings/s, publish-to-socket latency
-  const socket = io(`${base}${LIVE_NAMESPACE}`, { transports: ['websocket'] });
+  const socket = io(`${base}${LIVE_NAMESPACE}`, {
+    transports: ['websocket'],
+    auth: { token: accessToken },
+  });
   await socket.timeout(5000).emitWithAck(LIVE_EVENTS.subscribe, { reservoirId: DEMO_RESERVOIR.id });
   const sentAt = new Map<string, number>();
   const latencies: number[] = [];
