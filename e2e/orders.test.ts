@@ -3,6 +3,7 @@ import { after, before, test } from 'node:test';
 import type { BrowserContext, Page } from 'playwright-core';
 import { launchBrowser } from './support/browser.ts';
 import { startProduct, type RunningProduct } from './support/product.ts';
+import { until } from './support/waits.ts';
 
 const RES = 'lake-orrin';
 const ORDERS = `/reservoirs/${RES}/orders`;
@@ -55,20 +56,6 @@ async function api<T>(role: string, path: string): Promise<T> {
   });
   assert.ok(res.ok, `${path}: ${res.status} ${await res.clone().text()}`);
   return (await res.json()) as T;
-}
-
-async function until<T>(
-  what: string,
-  check: () => Promise<T | undefined>,
-  timeoutMs = 60_000,
-): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await check();
-    if (value !== undefined) return value;
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
 }
 
 /**

@@ -3,7 +3,8 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { after, before, test } from 'node:test';
 import type { BrowserContext, Page } from 'playwright-core';
 import { demoPassword, launchBrowser, signInThroughForm } from './support/browser.ts';
-import { startProduct, type RunningProduct } from './support/product.ts';
+import { apiToken, startProduct, type RunningProduct } from './support/product.ts';
+import { until } from './support/waits.ts';
 
 const RES = 'lake-orrin';
 const HOUR = 3_600_000;
@@ -23,25 +24,7 @@ after(async () => {
   assert.equal(code, 0, `Ctrl-C should stop the product cleanly:\n${product?.output()}`);
 });
 
-async function tokenOf(role: string): Promise<string> {
-  const res = await fetch(`${product.url}/api/auth/sign-in`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ username: role, password: demoPassword(product.output(), role) }),
-  });
-  assert.equal(res.status, 200, await res.clone().text());
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-async function until<T>(what: string, check: () => Promise<T | undefined>, timeoutMs = 120_000) {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await check();
-    if (value !== undefined) return value;
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 500));
-  }
-}
+const tokenOf = (role: string) => apiToken(product, role);
 
 /** Clicks a download button and returns the file the browser saved. */
 async function download(page: Page, testId: string): Promise<{ name: string; body: Buffer }> {

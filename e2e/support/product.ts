@@ -4,6 +4,7 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { demoPassword } from './browser.ts';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 
@@ -79,4 +80,15 @@ export async function startProduct(
         child.kill('SIGINT');
       }),
   };
+}
+
+/** Signs a demo user in through the API with the password the product printed at start. */
+export async function apiToken(product: RunningProduct, role: string): Promise<string> {
+  const res = await fetch(`${product.url}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ username: role, password: demoPassword(product.output(), role) }),
+  });
+  if (res.status !== 200) throw new Error(`sign-in as ${role}: ${res.status} ${await res.text()}`);
+  return ((await res.json()) as { accessToken: string }).accessToken;
 }
