@@ -13,6 +13,7 @@ import { AlarmsService } from '../src/alarms/alarms.service';
 import { SiteClockService } from '../src/clock/site-clock.service';
 import { ForecastsService } from '../src/forecasts/forecasts.service';
 import { OrderEvents } from '../src/orders/order-events';
+import { IngestionService } from '../src/telemetry/ingestion.service';
 import { ACCESS_TEST_ENV, signInAs, stepUp, type SignedInUser } from './support/auth';
 import { startTestBroker, type TestBroker } from './support/broker';
 import { eventually, startTestGateway, type TestGateway } from './support/gateway';
@@ -46,8 +47,11 @@ describe('alarms: MQTT -> engine -> store -> API -> logbook', () => {
     );
   const find = async (id: string) => (await list()).alarms.find((a) => a.conditionId === id);
 
-  /** Both pool gauges report `value` every 30 s of site time over [from, to]. */
+  /** Both pool gauges report `value` every 30 s of site time over [from, to]; resolves once stored. */
   async function reportPool(from: number, to: number, value: number) {
+    const ingestion = gateway.app.get(IngestionService);
+    const stored = ingestion.counters.stored;
+    let sent = 0;
     for (let t = from; t <= to; t += 30_000) {
       for (const [deviceId, channel] of [
         ['pool-radar', 'pool.radar'],
@@ -65,8 +69,10 @@ describe('alarms: MQTT -> engine -> store -> API -> logbook', () => {
         await device.publishAsync(telemetryTopic(RES, deviceId), JSON.stringify(message), {
           qos: 1,
         });
+        sent += 1;
       }
     }
+    await eventually(() => expect(ingestion.counters.stored).toBeGreaterThanOrEqual(stored + sent));
   }
 
   beforeAll(async () => {

@@ -11,8 +11,11 @@ export class MqttHealthIndicator {
 
   check(key: string) {
     const check = this.indicator.check(key);
-    return this.mqtt.connected
-      ? check.up()
-      : check.down({ message: 'not connected to the broker' });
+    if (this.mqtt.ready) return check.up();
+    return check.down({
+      message: this.mqtt.connected
+        ? 'connected, waiting for the broker to confirm the subscriptions'
+        : 'not connected to the broker',
+    });
   }
 }

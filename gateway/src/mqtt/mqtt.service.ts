@@ -20,6 +20,12 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
   private client?: MqttClient;
   private readonly handlers: Array<{ filter: string; handler: MqttHandler }> = [];
   private readonly group: string | undefined;
+  /** Subscribe requests sent and not yet answered by the broker (SUBACK). */
+  private unanswered = 0;
+  /** Whether the broker has acknowledged this connection's subscriptions. */
+  private acknowledged = false;
+  /** Counts connections, so an answer meant for an earlier one is not taken for this one's. */
+  private connection = 0;
 
   /** Set when several gateways share the ingestion: each then sees only its share of a device's seqs. */
   get sharedGroup(): string | undefined {
@@ -46,6 +52,9 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
     });
     this.client.on('connect', () => {
       this.logger.log(`Connected to ${url}`);
+      this.connection += 1;
+      this.unanswered = 0;
+      this.acknowledged = false;
       this.resubscribe();
     });
     this.client.on('error', (error) => this.logger.warn(`MQTT: ${error.message}`));
@@ -61,11 +70,18 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
     return this.client?.connected ?? false;
   }
 
+  /**
+   * Connected, and the broker has answered every subscription: from here on a message published
+   * to a subscribed topic reaches us (before the SUBACK, a fresh session would not queue it).
+   */
+  get ready(): boolean {
+    return this.connected && this.acknowledged && this.unanswered === 0;
+  }
+
   /** Registers a handler; the subscription is made now if connected and again on every reconnect. */
   subscribe(filter: string, handler: MqttHandler): void {
     this.handlers.push({ filter, handler });
-    if (this.client?.connected)
-      this.client.subscribe(subscriptionFilter(filter, this.group), { qos: 1 });
+    if (this.client?.connected) this.send([subscriptionFilter(filter, this.group)]);
   }
 
   async publish(topic: string, payload: string, retain = false): Promise<void> {
@@ -77,7 +93,19 @@ export class MqttService implements OnModuleInit, OnModuleDestroy {
     const filters = [
       ...new Set(this.handlers.map((h) => subscriptionFilter(h.filter, this.group))),
     ];
-    if (filters.length) this.client?.subscribe(filters, { qos: 1 });
+    if (filters.length) this.send(filters);
+    else this.acknowledged = true;
+  }
+
+  private send(filters: string[]): void {
+    const connection = this.connection;
+    this.unanswered += 1;
+    this.client?.subscribe(filters, { qos: 1 }, (error) => {
+      if (connection !== this.connection) return;
+      this.unanswered -= 1;
+      if (error) this.logger.warn(`Subscribing to ${filters.join(', ')} failed: ${error.message}`);
+      else this.acknowledged = true;
+    });
   }
 
   private dispatch(topic: string, payload: Buffer): void {

@@ -8,7 +8,11 @@ import { createInterface } from 'node:readline';
 const SCRIPT = `
 import net from 'node:net';
 import { Aedes } from 'aedes';
-const broker = await Aedes.createBroker();
+const delay = Number(process.env.SUBSCRIBE_DELAY_MS ?? 0);
+// a slow broker, for tests of what the gateway does before its subscriptions are confirmed
+const broker = await Aedes.createBroker(
+  delay ? { authorizeSubscribe: (client, sub, done) => setTimeout(() => done(null, sub), delay) } : {},
+);
 const server = net.createServer(broker.handle);
 server.listen(Number(process.env.BROKER_PORT ?? 0), '127.0.0.1', () => console.log('PORT ' + server.address().port));
 process.on('SIGTERM', () => { server.close(); broker.close(() => process.exit(0)); });
@@ -20,10 +24,15 @@ export interface TestBroker {
   stop(): Promise<void>;
 }
 
-export async function startTestBroker(port = 0): Promise<TestBroker> {
+/** `subscribeDelayMs` holds every SUBACK back that long. */
+export async function startTestBroker(port = 0, subscribeDelayMs = 0): Promise<TestBroker> {
   const child: ChildProcess = spawn(process.execPath, ['--input-type=module', '-e', SCRIPT], {
     cwd: __dirname,
-    env: { ...process.env, BROKER_PORT: String(port) },
+    env: {
+      ...process.env,
+      BROKER_PORT: String(port),
+      SUBSCRIBE_DELAY_MS: String(subscribeDelayMs),
+    },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
   const actual = await new Promise<number>((resolve, reject) => {
